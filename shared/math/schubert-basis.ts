@@ -1,0 +1,233 @@
+/**
+ * The Schubert basis of ℤ[x_1, x_2, …]: expansion, structure constants, Monk's rule.
+ *
+ * Conventions:
+ * - A SchubertCombination maps `Permutation.key` (trimmed one-line, e.g. "2,1,4,3") to a
+ *   nonzero integer coefficient; it stands for Σ c_w S_w.
+ * - Expansion uses the leading-term property: the largest monomial of S_w in the order
+ *   that compares exponents of x_k, x_{k−1}, …, x_1 (last variable first) is x^{code(w)}
+ *   with coefficient 1. Peeling leading terms gives exact coefficients.
+ * - Structure constants: S_u S_v = Σ_w c_{u,v}^w S_w. The product is computed without
+ *   expanding it: write the factor with fewer terms as a polynomial, evaluate it in
+ *   Horner form over x_1, x_2, …, and multiply Schubert combinations by a variable with
+ *   x_r S_w = Σ_{k>r, ℓ(w t_{rk}) = ℓ(w)+1} S_{w t_{rk}} − Σ_{q<r, ℓ(w t_{qr}) = ℓ(w)+1} S_{w t_{qr}}
+ *   (a consequence of Monk's rule, as x_r = S_{s_r} − S_{s_{r−1}}).
+ * - Monk's rule: S_{s_r} S_w = Σ_{j ≤ r < k, ℓ(w t_{jk}) = ℓ(w)+1} S_{w t_{jk}}.
+ */
+import { Permutation } from './permutation'
+import { Polynomial, accumulate, decodeMonomial } from './polynomial'
+import { packedSchubert, schubertPolynomial } from './schubert'
+import { NotInSpanError } from './errors'
+import { addChecked, mulChecked } from './coefficient'
+import { toMeter, type Budget, type BudgetMeter } from './budget'
+
+export type SchubertCombination = Map<string, number>
+
+/** Sorted list form of a combination: longest permutations first, then by one-line. */
+export function combinationEntries(c: SchubertCombination): { permutation: Permutation; coefficient: number }[] {
+  return [...c]
+    .map(([k, coefficient]) => ({ permutation: Permutation.fromOneLine(k === '' ? [] : k.split(',').map(Number)), coefficient }))
+    .sort((a, b) => b.permutation.length() - a.permutation.length() || a.permutation.key.localeCompare(b.permutation.key))
+}
+
+/** Compare two combinations for equality. */
+export function combinationsEqual(a: SchubertCombination, b: SchubertCombination): boolean {
+  if (a.size !== b.size) return false
+  for (const [k, c] of a) if (b.get(k) !== c) return false
+  return true
+}
+
+/** Σ c_w S_w as a polynomial. */
+export function combinationToPolynomial(c: SchubertCombination, budget?: Budget | BudgetMeter): Polynomial {
+  let p = Polynomial.zero()
+  for (const { permutation, coefficient } of combinationEntries(c)) p = p.add(schubertPolynomial(permutation, budget).scale(coefficient))
+  return p
+}
+
+function compareLeading(a: readonly number[], b: readonly number[]): number {
+  for (let i = Math.max(a.length, b.length) - 1; i >= 0; i--) {
+    const d = (a[i] ?? 0) - (b[i] ?? 0)
+    if (d !== 0) return d
+  }
+  return 0
+}
+
+/**
+ * Expand a polynomial in x in the Schubert basis; e.g. x_1 ↦ {"2,1": 1}.
+ * With `within: n` only S_w for w ∈ S_n are allowed; a polynomial outside that span (or one
+ * involving y) is refused with NotInSpanError.
+ */
+export function schubertExpansion(f: Polynomial, options: { within?: number; budget?: Budget | BudgetMeter } = {}): SchubertCombination {
+  const meter = toMeter(options.budget)
+  for (const k of f.terms.keys()) {
+    if (decodeMonomial(k).y.length > 0) throw new NotInSpanError('the polynomial involves y-variables; the Schubert basis spans ℤ[x] only')
+  }
+  const rest = new Map(f.terms)
+  const out: SchubertCombination = new Map()
+  while (rest.size > 0) {
+    meter.step(rest.size)
+    let bestKey = ''
+    let best: number[] | undefined
+    for (const k of rest.keys()) {
+      const e = decodeMonomial(k).x
+      if (best === undefined || compareLeading(e, best) > 0) { best = e; bestKey = k }
+    }
+    const c = rest.get(bestKey)!
+    const w = Permutation.fromLehmerCode(best!)
+    if (options.within !== undefined && w.trimmed().size > options.within) {
+      throw new NotInSpanError(`not in the span of {S_w : w ∈ S_${options.within}}: the expansion needs S_${w.toString()} (leading monomial with exponents [${best!.join(',')}])`)
+    }
+    out.set(w.key, c)
+    const s = schubertPolynomial(w, meter)
+    for (const [k, v] of s.terms) accumulate(rest, k, -mulChecked(c, v))
+    meter.terms(rest.size)
+  }
+  return out
+}
+
+// ---- products -------------------------------------------------------------------------
+
+/** Internal keys: one UTF-16 code unit per one-line value, trailing fixed points dropped. */
+function toInternal(w: Permutation): string {
+  return String.fromCharCode(...w.trimmed().oneLine)
+}
+
+function fromInternal(k: string): string {
+  const vals: number[] = []
+  for (let i = 0; i < k.length; i++) vals.push(k.charCodeAt(i))
+  return vals.join(',')
+}
+
+function addTo(m: Map<string, number>, k: string, c: number): void {
+  const old = m.get(k)
+  if (old === undefined) m.set(k, c)
+  else {
+    const v = addChecked(old, c)
+    if (v === 0) m.delete(k)
+    else m.set(k, v)
+  }
+}
+
+/** x_r · Σ c_w S_w, as a combination (internal keys). */
+function multiplyByVariable(r: number, comb: Map<string, number>, meter: BudgetMeter): Map<string, number> {
+  const out = new Map<string, number>()
+  for (const [key, c] of comb) {
+    const n = key.length
+    const at = (j: number): number => (j <= n ? key.charCodeAt(j - 1) : j)
+    const wr = at(r)
+    // Up-moves t_{rk}, k > r: w(r) < w(k) with no value of positions between in (w(r), w(k)).
+    let m = Infinity
+    const top = Math.max(n, r) + 1
+    for (let k = r + 1; k <= top; k++) {
+      const wk = at(k)
+      if (wk > wr && wk < m) {
+        m = wk
+        addTo(out, swapKey(key, r, k), c)
+      }
+    }
+    // Down-moves t_{qr}, q < r: w(q) < w(r) with no value between in (w(q), w(r)).
+    let M = -Infinity
+    for (let q = r - 1; q >= 1; q--) {
+      const wq = at(q)
+      if (wq < wr && wq > M) {
+        M = wq
+        addTo(out, swapKey(key, q, r), -c)
+      }
+    }
+    meter.step(top)
+  }
+  meter.terms(out.size, 'Schubert classes')
+  return out
+}
+
+function swapKey(key: string, a: number, b: number): string {
+  // a < b; extend with fixed points when b is past the end.
+  let k = key
+  while (k.length < b) k += String.fromCharCode(k.length + 1)
+  return k.slice(0, a - 1) + k[b - 1] + k.slice(a, b - 1) + k[a - 1] + k.slice(b)
+}
+
+/** S_u · S_v in the Schubert basis; e.g. S_{s_1}·S_{s_1} = S_{s_2 s_1}… = {"3,1,2": 1, "2,3,1": 1}. */
+export function schubertProduct(u: Permutation, v: Permutation, budget?: Budget | BudgetMeter): SchubertCombination {
+  const meter = toMeter(budget)
+  // Expand the factor with fewer terms (cheap proxy: fewer reduced pipe dreams ~ smaller length, then size).
+  const [poly, other] = pickPolynomialSide(u, v, meter)
+  const start = new Map<string, number>([[toInternal(other), 1]])
+  // monomials as exponent vectors with coefficients
+  const monos = poly
+  const result = horner(monos, 1, start, meter)
+  const out: SchubertCombination = new Map()
+  for (const [k, c] of result) out.set(fromInternal(k), c)
+  return out
+}
+
+interface Mono { e: number[]; c: number }
+
+function pickPolynomialSide(u: Permutation, v: Permutation, meter: BudgetMeter): [Mono[], Permutation] {
+  const pu = packedSchubert(u, meter)
+  const pv = packedSchubert(v, meter)
+  const [side, other] = pu.poly.codes.length <= pv.poly.codes.length ? [pu, v] : [pv, u]
+  const monos: Mono[] = []
+  for (let t = 0; t < side.poly.codes.length; t++) monos.push({ e: side.context.exponents(side.poly.codes[t]!), c: side.poly.coefficients[t]! })
+  return [monos, other]
+}
+
+/** Σ_m c_m x^{e_m} restricted to variables ≥ i, times the combination `base`, in Horner form over x_i. */
+function horner(monos: Mono[], i: number, base: Map<string, number>, meter: BudgetMeter): Map<string, number> {
+  // Base case: no variable ≥ i occurs.
+  let maxVar = 0
+  for (const m of monos) for (let k = m.e.length - 1; k >= i - 1; k--) if (m.e[k]! > 0) { maxVar = Math.max(maxVar, k + 1); break }
+  if (maxVar === 0) {
+    let total = 0
+    for (const m of monos) total = addChecked(total, m.c)
+    const out = new Map<string, number>()
+    if (total !== 0) for (const [k, c] of base) out.set(k, mulChecked(c, total))
+    return out
+  }
+  // Group by the exponent of x_i.
+  const groups = new Map<number, Mono[]>()
+  let top = 0
+  for (const m of monos) {
+    const a = m.e[i - 1] ?? 0
+    top = Math.max(top, a)
+    let g = groups.get(a)
+    if (!g) { g = []; groups.set(a, g) }
+    g.push(m)
+  }
+  let acc = new Map<string, number>()
+  for (let a = top; a >= 0; a--) {
+    if (a < top) acc = multiplyByVariable(i, acc, meter)
+    const g = groups.get(a)
+    if (g) {
+      const part = horner(g, i + 1, base, meter)
+      for (const [k, c] of part) addTo(acc, k, c)
+    }
+  }
+  return acc
+}
+
+/** Monk's rule: S_{s_r} · S_w; e.g. `monkProduct(1, Permutation.parse('21'))`. */
+export function monkProduct(r: number, w: Permutation): SchubertCombination {
+  const n = Math.max(w.size, r) + 1
+  const line = w.embed(n)
+  const len = line.length()
+  const out: SchubertCombination = new Map()
+  for (let j = 1; j <= r; j++) for (let k = r + 1; k <= n; k++) {
+    const t = Permutation.fromCycles([[j, k]], n)
+    const x = line.compose(t)
+    if (x.length() === len + 1) out.set(x.key, (out.get(x.key) ?? 0) + 1)
+  }
+  return out
+}
+
+/** A single structure constant c_{u,v}^w. */
+export function structureConstant(u: Permutation, v: Permutation, w: Permutation, budget?: Budget | BudgetMeter): number {
+  if (u.length() + v.length() !== w.length()) return 0
+  return schubertProduct(u, v, budget).get(w.key) ?? 0
+}
+
+/** S_u · S_v by expanding the product polynomial (slow, independent path used as a cross-check). */
+export function schubertProductByExpansion(u: Permutation, v: Permutation, budget?: Budget | BudgetMeter): SchubertCombination {
+  const meter = toMeter(budget)
+  return schubertExpansion(schubertPolynomial(u, meter).mul(schubertPolynomial(v, meter), meter), { budget: meter })
+}
