@@ -1,0 +1,94 @@
+# Shared provisioning for scripts/start.sh and scripts/test.sh.
+# Sourced, not run. Everything here is idempotent and listens on 127.0.0.1 only.
+
+REPO_ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/../.." && pwd)"
+PG_BIN="${PG_BIN:-/usr/lib/postgresql/15/bin}"
+APT_UPDATED=0
+
+log() { printf '\033[1m[scholium]\033[0m %s\n' "$*"; }
+die() { printf '[scholium] error: %s\n' "$*" >&2; exit 2; }
+
+# Install Debian packages that are missing (we run as root on a fresh machine).
+ensure_apt() {
+  local missing=()
+  for pkg in "$@"; do
+    dpkg-query -W -f='${Status}' "$pkg" 2>/dev/null | grep -q 'install ok installed' || missing+=("$pkg")
+  done
+  [ ${#missing[@]} -eq 0 ] && return 0
+  [ "$(id -u)" -eq 0 ] || die "missing Debian packages (${missing[*]}); run as root or install them first"
+  log "installing Debian packages: ${missing[*]}"
+  if [ "$APT_UPDATED" -eq 0 ]; then apt-get update -qq; APT_UPDATED=1; fi
+  DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends "${missing[@]}" >/dev/null
+}
+
+# npm ci when node_modules is missing or older than the lock file.
+ensure_node_modules() {
+  cd "$REPO_ROOT"
+  if [ ! -f node_modules/.package-lock.json ] || [ package-lock.json -nt node_modules/.package-lock.json ]; then
+    log "installing npm packages (npm ci)"
+    npm ci --no-audit --no-fund --loglevel=error
+  fi
+}
+
+# A folder the postgres system user can reach. The repo's storage/ is used when
+# every parent is traversable; a clone under a private home falls back to a
+# folder under /var/lib/postgresql named after the repo path.
+pg_data_dir() {
+  local profile="$1" wanted="$REPO_ROOT/storage/$1/pg"
+  mkdir -p "$REPO_ROOT/storage/$profile"
+  if runuser -u postgres -- test -x "$REPO_ROOT/storage/$profile" 2>/dev/null; then
+    echo "$wanted"
+  else
+    echo "/var/lib/postgresql/scholium-$(printf '%s' "$REPO_ROOT" | sha1sum | cut -c1-10)-$profile"
+  fi
+}
+
+# pg_start PROFILE PORT DBNAME [fresh] — a private cluster on 127.0.0.1:PORT.
+pg_start() {
+  local profile="$1" port="$2" db="$3" fresh="${4:-}"
+  local data; data="$(pg_data_dir "$profile")"
+  if [ "$fresh" = fresh ] && [ -d "$data" ]; then
+    runuser -u postgres -- "$PG_BIN/pg_ctl" -D "$data" -m immediate -w stop >/dev/null 2>&1 || true
+    rm -rf "$data"
+  fi
+  if [ ! -f "$data/PG_VERSION" ]; then
+    log "creating PostgreSQL cluster in $data"
+    mkdir -p "$data" && chown postgres:postgres "$data" && chmod 700 "$data"
+    runuser -u postgres -- "$PG_BIN/initdb" -D "$data" -U postgres -A trust -E UTF8 --no-locale >/dev/null
+  fi
+  if ! runuser -u postgres -- "$PG_BIN/pg_ctl" -D "$data" status >/dev/null 2>&1; then
+    runuser -u postgres -- "$PG_BIN/pg_ctl" -D "$data" -l "$data/server.log" -w -t 30 \
+      -o "-c listen_addresses=127.0.0.1 -p $port -k $data" start >/dev/null \
+      || { tail -20 "$data/server.log" >&2; die "PostgreSQL did not start on port $port"; }
+  fi
+  if ! psql -h 127.0.0.1 -p "$port" -U postgres -tAc "select 1 from pg_database where datname='$db'" | grep -q 1; then
+    psql -h 127.0.0.1 -p "$port" -U postgres -qc "create database \"$db\"" >/dev/null
+  fi
+  PG_STARTED_DATA="$data"
+}
+
+pg_stop() {
+  local data="$1"
+  [ -n "$data" ] && [ -f "$data/postmaster.pid" ] || return 0
+  runuser -u postgres -- "$PG_BIN/pg_ctl" -D "$data" -m fast -w stop >/dev/null 2>&1 || true
+}
+
+# wait_for_port PORT SECONDS — true once something accepts on 127.0.0.1:PORT.
+wait_for_port() {
+  local port="$1" limit="${2:-30}" i=0
+  while ! (exec 3<>"/dev/tcp/127.0.0.1/$port") 2>/dev/null; do
+    i=$((i + 1)); [ "$i" -ge $((limit * 10)) ] && return 1; sleep 0.1
+  done
+}
+
+# Build the app unless .output is newer than every source file.
+ensure_build() {
+  cd "$REPO_ROOT"
+  if [ -f .output/server/index.mjs ] && [ -z "$(find app.vue error.vue nuxt.config.ts tailwind.config.ts package-lock.json \
+      assets components composables layouts middleware pages plugins public server shared stores \
+      -newer .output/server/index.mjs -print -quit 2>/dev/null)" ]; then
+    return 0
+  fi
+  log "building the app (nuxt build)"
+  npx nuxt build >"$REPO_ROOT/storage/build.log" 2>&1 || { tail -40 "$REPO_ROOT/storage/build.log" >&2; die "nuxt build failed (storage/build.log)"; }
+}

@@ -1,0 +1,15 @@
+import type { InboxMessage } from '#shared/types/api'
+
+/** The mail the local fake SMTP server received, for a site administrator. */
+export default defineEventHandler(async (event): Promise<{ configured: boolean, messages: InboxMessage[] }> => {
+  await authorize(event, { siteAdmin: true })
+  const { mailInboxUrl } = useRuntimeConfig()
+  if (!mailInboxUrl) return { configured: false, messages: [] }
+  try {
+    const messages = await $fetch<InboxMessage[]>('/messages', { baseURL: mailInboxUrl, timeout: 3000 })
+    return { configured: true, messages: messages.map(m => ({ id: m.id, receivedAt: m.receivedAt, from: m.from, to: m.to, subject: m.subject, text: m.text })) }
+  }
+  catch {
+    fail(502, 'mail-inbox-unavailable', 'The local mail inbox does not answer')
+  }
+})

@@ -1,0 +1,15 @@
+import { z } from 'zod'
+import { signIn } from '../../services/accounts'
+
+const SignIn = z.object({
+  email: z.string().trim().min(1, 'Enter your e-mail address').max(254),
+  password: z.string().min(1, 'Enter your password').max(200),
+})
+
+export default defineEventHandler(async (event) => {
+  const body = await readValidatedBody(event, validateWith(SignIn))
+  const clientAddress = getRequestIP(event, { xForwardedFor: false }) ?? 'unknown'
+  const user = await signIn(useDb(), { ...body, clientAddress })
+  await setUserSession(event, { user, loggedInAt: Date.now() })
+  return { user }
+})

@@ -1,0 +1,6 @@
+import { deskSummary } from '../services/views'
+
+export default defineEventHandler(async (event) => {
+  const { user } = await authorize(event, { signedIn: true })
+  return deskSummary(useDb(), user)
+})

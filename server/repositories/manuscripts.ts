@@ -1,0 +1,65 @@
+import type { Db } from '../database/connect'
+import type { ManuscriptListItem, ManuscriptRole, MemberView } from '#shared/types/api'
+
+export async function insertManuscript(db: Db, input: { title: string, ownerId: string }): Promise<{ id: string }> {
+  const row = await db.insertInto('manuscripts').values({ title: input.title, owner_id: input.ownerId, conventions: '{}' })
+    .returning('id').executeTakeFirstOrThrow()
+  await db.insertInto('manuscript_members').values({ manuscript_id: row.id, user_id: input.ownerId, role: 'author' }).execute()
+  return row
+}
+
+export async function addManuscriptMember(db: Db, manuscriptId: string, userId: string, role: ManuscriptRole): Promise<void> {
+  await db.insertInto('manuscript_members').values({ manuscript_id: manuscriptId, user_id: userId, role })
+    .onConflict(oc => oc.columns(['manuscript_id', 'user_id']).doNothing()).execute()
+}
+
+/** The caller's membership of a manuscript, or undefined when they have none. */
+export async function findManuscriptMembership(db: Db, manuscriptId: string, userId: string) {
+  return db.selectFrom('manuscripts as m')
+    .innerJoin('manuscript_members as mm', 'mm.manuscript_id', 'm.id')
+    .select(['m.id', 'm.title', 'm.owner_id as ownerId', 'm.conventions', 'mm.role'])
+    .where('m.id', '=', manuscriptId)
+    .where('mm.user_id', '=', userId)
+    .executeTakeFirst()
+}
+
+export async function listManuscriptsForUser(db: Db, userId: string): Promise<ManuscriptListItem[]> {
+  const rows = await db.selectFrom('manuscripts as m')
+    .innerJoin('manuscript_members as mm', 'mm.manuscript_id', 'm.id')
+    .leftJoin('revisions as r', 'r.manuscript_id', 'm.id')
+    .select(eb => ['m.id', 'm.title', 'mm.role', 'm.updated_at', eb.fn.count<number>('r.id').as('revisionCount'), eb.fn.max('r.created_at').as('latestRevisionAt')])
+    .where('mm.user_id', '=', userId)
+    .groupBy(['m.id', 'm.title', 'mm.role', 'm.updated_at'])
+    .orderBy('m.updated_at', 'desc')
+    .execute()
+  return rows.map(r => ({
+    id: r.id,
+    title: r.title,
+    role: r.role,
+    revisionCount: Number(r.revisionCount),
+    latestRevisionAt: r.latestRevisionAt ? new Date(r.latestRevisionAt).toISOString() : null,
+    updatedAt: r.updated_at.toISOString(),
+  }))
+}
+
+export async function listManuscriptMembers(db: Db, manuscriptId: string): Promise<MemberView[]> {
+  const rows = await db.selectFrom('manuscript_members as mm')
+    .innerJoin('users as u', 'u.id', 'mm.user_id')
+    .select(['u.id', 'u.display_name', 'u.email', 'mm.role'])
+    .where('mm.manuscript_id', '=', manuscriptId)
+    .orderBy('mm.created_at')
+    .execute()
+  return rows.map(r => ({ userId: r.id, displayName: r.display_name, email: r.email, role: r.role }))
+}
+
+export async function touchManuscript(db: Db, manuscriptId: string): Promise<void> {
+  await db.updateTable('manuscripts').set({ updated_at: new Date() }).where('id', '=', manuscriptId).execute()
+}
+
+export async function deleteManuscript(db: Db, manuscriptId: string): Promise<void> {
+  await db.deleteFrom('manuscripts').where('id', '=', manuscriptId).execute()
+}
+
+export async function findManuscriptByTitleForOwner(db: Db, ownerId: string, title: string) {
+  return db.selectFrom('manuscripts').select('id').where('owner_id', '=', ownerId).where('title', '=', title).executeTakeFirst()
+}

@@ -1,0 +1,66 @@
+/**
+ * The demo scenario: an invented venue, its editor, authors, a coauthor and
+ * a referee, and two manuscripts with real LaTeX (some examples right, some
+ * deliberately wrong). Every name here is invented. Seeding is idempotent:
+ * what exists already is left alone, so a second `npm start` keeps the data.
+ */
+import type { Db } from '../database/connect'
+import { findUserByEmail, insertUser } from '../repositories/users'
+import { addManuscriptMember, findManuscriptByTitleForOwner, insertManuscript } from '../repositories/manuscripts'
+import { addVenueEditor, upsertVenue } from '../repositories/venues'
+import { listRevisions } from '../repositories/revisions'
+import { insertRefereeAssignment, insertSubmission } from '../repositories/submissions'
+import { appendAudit } from '../repositories/audit'
+import { createRevision, type UploadedPart } from './revisions'
+import { DEMO_PASSWORD, DEMO_PEOPLE } from './demo-people'
+
+const VENUES = {
+  ledgerfield: { slug: 'ledgerfield-jac', name: 'Ledgerfield Journal of Algebraic Combinatorics', description: 'A quarterly for flag varieties, tableaux and their polynomials.' },
+  brackwater: { slug: 'brackwater-notes', name: 'Brackwater Notes in Enumerative Geometry', description: 'Short notes with explicit computations.' },
+}
+
+type DemoAssets = (prefix: string) => Promise<UploadedPart[]>
+
+export async function seedDemo(db: Db, readAssets: DemoAssets): Promise<void> {
+  const ids: Record<keyof typeof DEMO_PEOPLE, string> = {} as never
+  for (const [key, person] of Object.entries(DEMO_PEOPLE) as [keyof typeof DEMO_PEOPLE, typeof DEMO_PEOPLE[keyof typeof DEMO_PEOPLE]][]) {
+    const existing = await findUserByEmail(db, person.email)
+    ids[key] = existing?.id ?? (await insertUser(db, { email: person.email, displayName: person.displayName, siteRole: person.siteRole, passwordHash: await hashPassword(DEMO_PASSWORD) })).id
+  }
+
+  const ledgerfield = await upsertVenue(db, VENUES.ledgerfield)
+  const brackwater = await upsertVenue(db, VENUES.brackwater)
+  await addVenueEditor(db, ledgerfield.id, ids.editor)
+  await addVenueEditor(db, brackwater.id, ids.otherEditor)
+
+  const flags = await ensureManuscript(db, ids.author, 'Transition chains for vexillary flags')
+  await addManuscriptMember(db, flags, ids.coauthor, 'coauthor')
+  await ensureRevisions(db, flags, [
+    { by: ids.author, prefix: 'demo:vexillary-flags:rev1', note: 'First draft with the small cases.' },
+    { by: ids.coauthor, prefix: 'demo:vexillary-flags:rev2', note: 'Fixed the pipe dream count and the Grassmannian example.' },
+  ], readAssets)
+
+  const tilings = await ensureManuscript(db, ids.soloAuthor, 'A note on bumpless tilings of small permutations')
+  await ensureRevisions(db, tilings, [{ by: ids.soloAuthor, prefix: 'demo:bumpless-tilings:rev1', note: 'Submitted version.' }], readAssets)
+
+  const [submitted] = await listRevisions(db, tilings)
+  if (submitted) {
+    const submission = await insertSubmission(db, { revisionId: submitted.id, venueId: ledgerfield.id, submittedBy: ids.soloAuthor })
+    await insertRefereeAssignment(db, { submissionId: submission.id, refereeId: ids.referee, invitedBy: ids.editor })
+  }
+}
+
+async function ensureManuscript(db: Db, ownerId: string, title: string): Promise<string> {
+  const existing = await findManuscriptByTitleForOwner(db, ownerId, title)
+  if (existing) return existing.id
+  const created = await insertManuscript(db, { title, ownerId })
+  await appendAudit(db, { actorId: ownerId, action: 'manuscript.created', subjectType: 'manuscript', subjectId: created.id, details: { demo: true } })
+  return created.id
+}
+
+async function ensureRevisions(db: Db, manuscriptId: string, revisions: { by: string, prefix: string, note: string }[], readAssets: DemoAssets): Promise<void> {
+  const existing = await listRevisions(db, manuscriptId)
+  for (const revision of revisions.slice(existing.length)) {
+    await createRevision(db, { manuscriptId, userId: revision.by, parts: await readAssets(revision.prefix), note: revision.note, conventions: {} })
+  }
+}

@@ -1,0 +1,83 @@
+import type { Db } from '../database/connect'
+import type { ApiErrorCode } from '#shared/types/api'
+import { insertRevisionWithFiles, isStorageKeyReferenced, type StoredFile } from '../repositories/revisions'
+import { insertCheckRun } from '../repositories/check-runs'
+import { touchManuscript } from '../repositories/manuscripts'
+import { appendAudit } from '../repositories/audit'
+import { readUploadedFiles, UploadRefusedError, type BundleFile } from '../utils/upload-bundle'
+
+export interface UploadedPart { filename: string, data: Buffer }
+
+/**
+ * Stores a new revision: validate every file first, then put the bytes in S3
+ * by content hash, then record revision, files and a queued check run in one
+ * transaction, then enqueue the check. A refusal or failure at any step
+ * leaves nothing half-stored: objects this call created and nobody else
+ * references are removed again.
+ */
+export async function createRevision(db: Db, input: { manuscriptId: string, userId: string, parts: UploadedPart[], note: string, conventions: Record<string, string> }) {
+  const files = await readOrRefuse(input.parts)
+  const mainFile = guessMainFile(files)
+  const createdKeys: string[] = []
+  const stored: StoredFile[] = []
+  try {
+    for (const file of files) {
+      const { key, created } = await putSource(file.bytes, file.sha256)
+      if (created) createdKeys.push(key)
+      stored.push({ path: file.path, storageKey: key, sha256: file.sha256, sizeBytes: file.size })
+    }
+  }
+  catch (error) {
+    await removeUnreferenced(db, createdKeys)
+    console.error('[upload] storage failed', error)
+    fail(503, 'storage-unavailable', 'File storage is unavailable; nothing was stored')
+  }
+
+  let result: { revision: { id: string, number: number }, checkRunId: string }
+  try {
+    result = await db.transaction().execute(async (trx) => {
+      const revision = await insertRevisionWithFiles(trx, { manuscriptId: input.manuscriptId, uploadedBy: input.userId, mainFile, note: input.note, files: stored })
+      const run = await insertCheckRun(trx, { revisionId: revision.id, requestedBy: input.userId, conventions: input.conventions })
+      await touchManuscript(trx, input.manuscriptId)
+      await appendAudit(trx, {
+        actorId: input.userId,
+        action: 'revision.uploaded',
+        subjectType: 'manuscript',
+        subjectId: input.manuscriptId,
+        details: { revision: revision.number, files: stored.map(f => ({ path: f.path, sha256: f.sha256, size: f.sizeBytes })) },
+      })
+      return { revision, checkRunId: run.id }
+    })
+  }
+  catch (error) {
+    await removeUnreferenced(db, createdKeys)
+    throw error
+  }
+  await enqueueCheckRun(result.checkRunId).catch(error => console.error('[queue] enqueue failed; the run stays queued', error))
+  return { id: result.revision.id, number: result.revision.number, checkRunId: result.checkRunId, files: stored.map(f => ({ path: f.path, sha256: f.sha256, sizeBytes: f.sizeBytes })) }
+}
+
+async function readOrRefuse(parts: UploadedPart[]): Promise<BundleFile[]> {
+  try {
+    return await readUploadedFiles(parts)
+  }
+  catch (error) {
+    if (error instanceof UploadRefusedError) fail(422, `upload-${error.code}` as ApiErrorCode, error.message)
+    throw error
+  }
+}
+
+/** The file with \documentclass, else the only .tex file; the reader may still be told otherwise. */
+export function guessMainFile(files: { path: string, bytes: Uint8Array }[]): string | null {
+  const tex = files.filter(f => f.path.toLowerCase().endsWith('.tex'))
+  const withClass = tex.filter(f => /\\documentclass\b/.test(Buffer.from(f.bytes).toString('latin1')))
+  if (withClass.length > 0) return [...withClass].sort((a, b) => a.path.split('/').length - b.path.split('/').length)[0]!.path
+  return tex.length === 1 ? tex[0]!.path : null
+}
+
+async function removeUnreferenced(db: Db, keys: string[]): Promise<void> {
+  for (const key of keys) {
+    if (await isStorageKeyReferenced(db, key).catch(() => true)) continue
+    await deleteSource(key).catch(error => console.error('[upload] could not remove orphan object', key, error))
+  }
+}

@@ -1,0 +1,66 @@
+import type { Db } from '../database/connect'
+import type { DeskSummary, ManuscriptView, RevisionView, SessionUser } from '#shared/types/api'
+import { listManuscriptMembers, listManuscriptsForUser } from '../repositories/manuscripts'
+import { listRevisionFiles, listRevisions } from '../repositories/revisions'
+import { latestRunsByRevision } from '../repositories/check-runs'
+import { listAssignmentsForReferee, listSubmissionsForManuscript } from '../repositories/submissions'
+import { listVenuesForEditor } from '../repositories/venues'
+import type { ManuscriptGrant } from '../utils/access'
+
+/** Revisions of a manuscript, newest first, each with its files and latest check run. */
+export async function revisionViews(db: Db, manuscriptId: string, onlyRevisionId?: string): Promise<RevisionView[]> {
+  const revisions = (await listRevisions(db, manuscriptId)).filter(r => !onlyRevisionId || r.id === onlyRevisionId)
+  const ids = revisions.map(r => r.id)
+  const [files, runs] = await Promise.all([listRevisionFiles(db, ids), latestRunsByRevision(db, ids)])
+  return revisions.map(r => ({
+    id: r.id,
+    number: r.number,
+    mainFile: r.main_file,
+    note: r.note,
+    uploadedBy: r.uploader,
+    createdAt: r.created_at.toISOString(),
+    files: files.get(r.id) ?? [],
+    latestRun: runs.get(r.id) ?? null,
+  }))
+}
+
+export async function manuscriptView(db: Db, grant: ManuscriptGrant): Promise<ManuscriptView> {
+  const [members, revisions, submissions] = await Promise.all([
+    listManuscriptMembers(db, grant.manuscriptId),
+    revisionViews(db, grant.manuscriptId),
+    listSubmissionsForManuscript(db, grant.manuscriptId),
+  ])
+  return {
+    id: grant.manuscriptId,
+    title: grant.title,
+    myRole: grant.role,
+    isOwner: grant.isOwner,
+    conventions: grant.conventions,
+    members,
+    revisions,
+    submissions,
+  }
+}
+
+/** Everything a user's landing page shows, by the roles they hold. */
+export async function deskSummary(db: Db, user: SessionUser): Promise<DeskSummary> {
+  const [manuscripts, editorOf, assignments] = await Promise.all([
+    listManuscriptsForUser(db, user.id),
+    listVenuesForEditor(db, user.id),
+    listAssignmentsForReferee(db, user.id),
+  ])
+  return {
+    user,
+    manuscripts,
+    editorOf,
+    reviews: assignments.map(a => ({
+      assignmentId: a.id,
+      submissionId: a.submission_id,
+      manuscriptTitle: a.title,
+      venueName: a.venueName,
+      revisionNumber: a.number,
+      assignedAt: a.created_at.toISOString(),
+      released: a.released_at !== null,
+    })),
+  }
+}

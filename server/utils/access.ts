@@ -1,0 +1,72 @@
+import type { H3Event } from 'h3'
+import type { ManuscriptRole, SessionUser } from '#shared/types/api'
+import { findManuscriptMembership } from '../repositories/manuscripts'
+import { isVenueEditor } from '../repositories/venues'
+import { listAssignmentsForReferee } from '../repositories/submissions'
+
+/**
+ * What a route needs from its caller. Every route that is not public goes
+ * through `authorize`, the one guard, with one of these.
+ *
+ * Where a caller may not even know that a thing exists (someone else's
+ * manuscript, another venue, an unassigned submission), refusal is 404,
+ * so the answer does not confirm that it exists.
+ */
+export type Requirement =
+  | { signedIn: true }
+  | { siteAdmin: true }
+  | { manuscript: string, owner?: boolean }
+  | { venueEditor: string }
+  | { refereeAssignment: string }
+
+export interface ManuscriptGrant { user: SessionUser, manuscriptId: string, role: ManuscriptRole, isOwner: boolean, title: string, conventions: Record<string, string> }
+export interface AssignmentGrant { user: SessionUser, assignmentId: string, submissionId: string, revisionId: string, manuscriptId: string, title: string, venueName: string, revisionNumber: number, overallNote: string, released: boolean }
+
+export async function authorize(event: H3Event, need: { manuscript: string, owner?: boolean }): Promise<ManuscriptGrant>
+export async function authorize(event: H3Event, need: { refereeAssignment: string }): Promise<AssignmentGrant>
+export async function authorize(event: H3Event, need: Requirement): Promise<{ user: SessionUser }>
+export async function authorize(event: H3Event, need: Requirement): Promise<{ user: SessionUser } | ManuscriptGrant | AssignmentGrant> {
+  const session = await getUserSession(event)
+  const user = session.user as SessionUser | undefined
+  if (!user) fail(401, 'not-signed-in', 'Please sign in')
+  const db = useDb()
+
+  if ('signedIn' in need) return { user }
+  if ('siteAdmin' in need) {
+    if (user.siteRole !== 'admin') fail(403, 'forbidden', 'Only a site administrator may do this')
+    return { user }
+  }
+  if ('manuscript' in need) {
+    const membership = isUuid(need.manuscript) ? await findManuscriptMembership(db, need.manuscript, user.id) : undefined
+    if (!membership) fail(404, 'not-found', 'No such manuscript')
+    const isOwner = membership.ownerId === user.id
+    if (need.owner && !isOwner) fail(403, 'forbidden', 'Only the manuscript\'s owner may do this')
+    return { user, manuscriptId: membership.id, role: membership.role, isOwner, title: membership.title, conventions: membership.conventions }
+  }
+  if ('venueEditor' in need) {
+    if (!isUuid(need.venueEditor) || !(await isVenueEditor(db, need.venueEditor, user.id))) fail(404, 'not-found', 'No such venue')
+    return { user }
+  }
+  const assignment = isUuid(need.refereeAssignment)
+    ? (await listAssignmentsForReferee(db, user.id)).find(a => a.id === need.refereeAssignment)
+    : undefined
+  if (!assignment) fail(404, 'not-found', 'No such review')
+  return {
+    user,
+    assignmentId: assignment.id,
+    submissionId: assignment.submission_id,
+    revisionId: assignment.revisionId,
+    manuscriptId: assignment.manuscriptId,
+    title: assignment.title,
+    venueName: assignment.venueName,
+    revisionNumber: assignment.number,
+    overallNote: assignment.overall_note,
+    released: assignment.released_at !== null,
+  }
+}
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i
+/** Malformed ids are simply "not found"; they never reach PostgreSQL as a cast error. */
+export function isUuid(value: string): boolean {
+  return UUID.test(value)
+}

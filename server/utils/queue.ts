@@ -1,0 +1,34 @@
+import PgBoss from 'pg-boss'
+
+/** The queue every check run goes through; workers consume it (see DEVELOPERS.md). */
+export const CHECK_QUEUE = 'scholium-check-run'
+
+export interface CheckJobData { checkRunId: string }
+
+let boss: Promise<PgBoss> | undefined
+
+/** The process's pg-boss client, started on first use against the app database. */
+export function useQueue(): Promise<PgBoss> {
+  boss ??= (async () => {
+    const { databaseUrl } = useRuntimeConfig()
+    const instance = new PgBoss({ connectionString: databaseUrl, max: 3 })
+    instance.on('error', error => console.error('[queue]', error))
+    await instance.start()
+    await instance.createQueue(CHECK_QUEUE)
+    return instance
+  })()
+  return boss
+}
+
+/** Puts a check run on the queue. The run row already exists, so a lost message can be re-sent from it. */
+export async function enqueueCheckRun(checkRunId: string): Promise<void> {
+  const queue = await useQueue()
+  await queue.send(CHECK_QUEUE, { checkRunId } satisfies CheckJobData, { retryLimit: 3, retryDelay: 5, expireInSeconds: 15 * 60 })
+}
+
+export async function stopQueue(): Promise<void> {
+  if (!boss) return
+  const instance = await boss
+  boss = undefined
+  await instance.stop({ graceful: true, timeout: 5000 })
+}

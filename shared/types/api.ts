@@ -1,0 +1,175 @@
+/**
+ * API payloads and error codes shared by the client, the server and the CLI.
+ * Every failure the API returns carries one of these codes in `data.code`,
+ * so a client can switch on it instead of parsing a message.
+ */
+export type ApiErrorCode =
+  | 'invalid-input'
+  | 'not-signed-in'
+  | 'forbidden'
+  | 'not-found'
+  | 'email-taken'
+  | 'bad-credentials'
+  | 'rate-limited'
+  | 'upload-too-large'
+  | 'upload-too-many-files'
+  | 'upload-file-type'
+  | 'upload-path-unsafe'
+  | 'upload-link-entry'
+  | 'upload-compression-ratio'
+  | 'upload-archive-corrupt'
+  | 'upload-nested-archive'
+  | 'upload-duplicate-path'
+  | 'upload-empty'
+  | 'upload-no-tex'
+  | 'storage-unavailable'
+  | 'mail-inbox-unavailable'
+  | 'conflict'
+
+export interface ApiErrorData {
+  code: ApiErrorCode
+  /** For invalid-input: which fields failed and why. */
+  fields?: Record<string, string>
+}
+
+export type SiteRole = 'member' | 'admin'
+export type ManuscriptRole = 'author' | 'coauthor'
+
+/** The signed-in user as the session and the client see it. */
+export interface SessionUser {
+  id: string
+  email: string
+  displayName: string
+  siteRole: SiteRole
+}
+
+export interface DeskSummary {
+  user: SessionUser
+  manuscripts: ManuscriptListItem[]
+  editorOf: VenueListItem[]
+  reviews: ReviewListItem[]
+}
+
+export interface ManuscriptListItem {
+  id: string
+  title: string
+  role: ManuscriptRole
+  revisionCount: number
+  latestRevisionAt: string | null
+  updatedAt: string
+}
+
+export interface VenueListItem {
+  id: string
+  slug: string
+  name: string
+  submissionCount: number
+}
+
+export interface ReviewListItem {
+  assignmentId: string
+  submissionId: string
+  manuscriptTitle: string
+  venueName: string
+  revisionNumber: number
+  assignedAt: string
+  released: boolean
+}
+
+export interface RevisionFileView {
+  id: string
+  path: string
+  sha256: string
+  sizeBytes: number
+}
+
+export type CheckRunStatus = 'queued' | 'running' | 'finished' | 'failed' | 'cancelled'
+
+export interface CheckRunView {
+  id: string
+  status: CheckRunStatus
+  engineVersion: string | null
+  claimsTotal: number | null
+  claimsDone: number
+  queuedAt: string
+  startedAt: string | null
+  finishedAt: string | null
+  error: string | null
+  summary: Record<string, unknown>
+}
+
+export interface RevisionView {
+  id: string
+  number: number
+  mainFile: string | null
+  note: string
+  uploadedBy: string
+  createdAt: string
+  files: RevisionFileView[]
+  latestRun: CheckRunView | null
+}
+
+export interface MemberView {
+  userId: string
+  displayName: string
+  email: string
+  role: ManuscriptRole
+}
+
+export interface SubmissionSummaryView {
+  id: string
+  venueName: string
+  revisionNumber: number
+  status: string
+  createdAt: string
+}
+
+export interface ManuscriptView {
+  id: string
+  title: string
+  myRole: ManuscriptRole
+  isOwner: boolean
+  conventions: Record<string, string>
+  members: MemberView[]
+  revisions: RevisionView[]
+  submissions: SubmissionSummaryView[]
+}
+
+/** What an editor sees of one submission; authors never receive this shape. */
+export interface EditorSubmissionRow {
+  id: string
+  manuscriptTitle: string
+  revisionNumber: number
+  submittedBy: string
+  status: string
+  createdAt: string
+  referees: { assignmentId: string, displayName: string, email: string, released: boolean }[]
+  latestRun: CheckRunView | null
+}
+
+export interface ReviewView {
+  assignmentId: string
+  submissionId: string
+  manuscriptTitle: string
+  venueName: string
+  revision: RevisionView
+  overallNote: string
+  released: boolean
+}
+
+export interface AdminUserRow {
+  id: string
+  email: string
+  displayName: string
+  siteRole: SiteRole
+  createdAt: string
+}
+
+export interface InboxMessage {
+  id: string
+  receivedAt: string
+  from: string
+  to: string[]
+  subject: string
+  text: string
+}
