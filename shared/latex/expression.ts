@@ -1,0 +1,842 @@
+/**
+ * Reading one side of an equation into an `Expr`, and permutations and partitions into specs.
+ *
+ * Conventions (the rules are documented in docs/tags.md, "What the reader recognises"):
+ * - One-line notation: digits written together (`2143`, `{2\,1\,4\,3}`) are one entry each;
+ *   use `[…]` or commas for entries of 10 or more.
+ * - A single parenthesised list `(a_1,…,a_k)` is one-line notation when its entries are exactly
+ *   1…k with k ≥ 3 (and k = n when n is bound); otherwise, and for several lists `(1\,3)(2\,4)`,
+ *   it is cycle notation.
+ * - `w_0` needs n: `w_0^{(n)}`, or a binding "Let $n = 4$".
+ * - A subscript of s made of simple transpositions (`s_1 s_2 s_1`) is a permutation only where a
+ *   permutation is expected (subscripts of \mathfrak S, bindings); elsewhere s_k is a Schur function.
+ * - c^{ν}_{λ,μ}: a Littlewood–Richardson coefficient when all three read as partitions with
+ *   |ν| = |λ| + |μ|; else a Schubert structure constant when all three read as permutations.
+ * - An operator ∂_i applies to the rest of its product term: `\partial_1 x_1^2 x_2` is ∂_1(x_1^2 x_2).
+ */
+import type { ContextValue, Expr, Partition, PermutationSpec, CountedObject, SymmetricFamily } from '../types/claims'
+import { MATRIX_ENVS, plainText, type MathNode } from './math-tree'
+import type { NotationObject } from './tags'
+
+export class ParseFail extends Error {}
+
+export interface ParseContext {
+  bindings: ReadonlyMap<string, ContextValue>
+  notation: ReadonlyMap<string, NotationObject>
+}
+
+export type SideResult =
+  | { ok: true; expr: Expr; meaningful: boolean; used: Map<string, ContextValue> }
+  | { ok: false; reason: string; recognised: boolean; used: Map<string, ContextValue> }
+
+/** Font commands that wrap a name: \mathrm{BPD}, \operatorname{Red}, … */
+const NAME_COMMANDS = new Set(['mathrm', 'operatorname', 'text', 'textrm', 'mathsf', 'mathit', 'textup', 'mathcal', 'rm', 'mathbf', 'textsf', 'mathtt'])
+const COUNT_NAMES: Record<string, CountedObject> = {
+  BPD: 'bumplessPipeDreams', bpd: 'bumplessPipeDreams', PD: 'pipeDreams', pd: 'pipeDreams', RP: 'pipeDreams',
+  Red: 'reducedWords', red: 'reducedWords', R: 'reducedWords', RW: 'reducedWords',
+}
+const UNSUPPORTED_OPERATORS = new Set(['sum', 'prod', 'frac', 'dfrac', 'tfrac', 'binom', 'sqrt', 'int', 'lim', 'bigoplus', 'bigotimes', 'otimes', 'oplus', 'pm', 'mp', 'cdots', 'ldots', 'dots', 'dotsb', 'dotsc', 'vdots', 'ddots'])
+const PERMUTATION_SYMBOLS = new Set(['u', 'v', 'w', 'x', 'y', 'z', '\\sigma', '\\pi', '\\tau', '\\rho'])
+const PARTITION_SYMBOLS = new Set(['\\lambda', '\\mu', '\\nu', '\\kappa', '\\alpha', '\\beta', '\\gamma', '\\rho'])
+
+const isCh = (n: MathNode | undefined, v: string): boolean => !!n && n.k === 'ch' && n.v === v
+const isCs = (n: MathNode | undefined, v: string): boolean => !!n && n.k === 'cs' && n.v === v
+const isDigit = (n: MathNode | undefined): boolean => !!n && n.k === 'ch' && n.v >= '0' && n.v <= '9' && n.v.length === 1
+const childrenOf = (n: MathNode): MathNode[] => (n.k === 'group' || n.k === 'env' ? n.children : [n])
+
+/** How a symbol node is named in bindings: `w`, `w'`, `\sigma`. */
+function symbolName(n: MathNode | undefined): string | undefined {
+  if (!n) return undefined
+  if (n.k === 'ch' && /^[A-Za-z]$/.test(n.v)) return n.v
+  if (n.k === 'cs' && /^[A-Za-z]+$/.test(n.v)) return '\\' + n.v
+  return undefined
+}
+
+function describe(n: MathNode): string {
+  if (n.k === 'cs') {
+    return '\\' + n.v
+  }
+  if (n.k === 'ch') return n.v
+  if (n.k === 'group') return '{…}'
+  return `\\begin{${n.name}}`
+}
+
+/** Strip redundant braces: `{{x}}` → `x`. */
+function unwrap(nodes: MathNode[]): MathNode[] {
+  let cur = nodes
+  while (cur.length === 1 && cur[0]!.k === 'group') cur = cur[0]!.children
+  return cur
+}
+
+/** Split a node list at top-level commas (outside parentheses and brackets). */
+function splitCommas(nodes: MathNode[]): MathNode[][] {
+  const out: MathNode[][] = [[]]
+  let depth = 0
+  for (const n of nodes) {
+    if (isCh(n, '(') || isCh(n, '[')) depth++
+    if (isCh(n, ')') || isCh(n, ']')) depth--
+    if (depth === 0 && isCh(n, ',')) out.push([])
+    else out[out.length - 1]!.push(n)
+  }
+  return out
+}
+
+function readInteger(nodes: MathNode[]): number | undefined {
+  const ns = unwrap(nodes)
+  if (!ns.length || !ns.every(isDigit)) return undefined
+  const v = Number(ns.map(n => (n as { v: string }).v).join(''))
+  return Number.isSafeInteger(v) ? v : undefined
+}
+
+export class SideParser {
+  private i = 0
+  recognised = false
+  readonly used = new Map<string, ContextValue>()
+  private meaningful = false
+
+  constructor(private nodes: MathNode[], readonly ctx: ParseContext) {}
+
+  /** Parse the whole node list as an expression. */
+  static parseSide(nodes: MathNode[], ctx: ParseContext): SideResult {
+    const p = new SideParser(nodes, ctx)
+    try {
+      if (!nodes.length) throw new ParseFail('empty side')
+      const expr = p.parseAll()
+      return { ok: true, expr, meaningful: p.meaningful, used: p.used }
+    } catch (e) {
+      if (!(e instanceof ParseFail)) throw e
+      return { ok: false, reason: e.message, recognised: p.recognised, used: p.used }
+    }
+  }
+
+  private parseAll(): Expr {
+    const e = this.parseSum()
+    if (this.i < this.nodes.length) {
+      const n = this.nodes[this.i]!
+      throw new ParseFail(isCh(n, ')') ? 'unbalanced ")"' : `unexpected ${describe(n)}`)
+    }
+    return e
+  }
+
+  private sub(nodes: MathNode[]): Expr {
+    const p = new SideParser(nodes, this.ctx)
+    try {
+      if (!nodes.length) throw new ParseFail('empty group')
+      return p.parseAll()
+    } finally {
+      this.recognised ||= p.recognised
+      this.meaningful ||= p.meaningful
+      for (const [k, v] of p.used) this.used.set(k, v)
+    }
+  }
+
+  private peek(o = 0): MathNode | undefined {
+    return this.nodes[this.i + o]
+  }
+
+  private parseSum(): Expr {
+    const terms: Expr[] = []
+    let sign = 1
+    if (isCh(this.peek(), '+')) this.i++
+    else if (isCh(this.peek(), '-')) {
+      this.i++
+      sign = -1
+    }
+    for (;;) {
+      const t = this.parseProduct()
+      terms.push(sign < 0 ? { type: 'negate', arg: t } : t)
+      if (isCh(this.peek(), '+')) sign = 1
+      else if (isCh(this.peek(), '-')) sign = -1
+      else break
+      this.i++
+    }
+    return terms.length === 1 ? terms[0]! : { type: 'add', terms }
+  }
+
+  private startsFactor(n: MathNode | undefined): boolean {
+    if (!n) return false
+    if (n.k === 'ch') return !['+', '-', ')', ']', '=', '|', '^', '_', ',', ';'].includes(n.v)
+    if (n.k === 'cs') return n.v !== 'right' && n.v !== 'cdot' && n.v !== 'times' && n.v !== 'rvert' && n.v !== 'rangle'
+    return true
+  }
+
+  private parseProduct(): Expr {
+    const factors: Expr[] = [this.parseFactor()]
+    for (;;) {
+      const n = this.peek()
+      if (isCs(n, 'cdot') || isCs(n, 'times') || isCh(n, '*')) {
+        this.i++
+        factors.push(this.parseFactor())
+      } else if (this.startsFactor(n)) factors.push(this.parseFactor())
+      else break
+    }
+    return factors.length === 1 ? factors[0]! : { type: 'multiply', factors }
+  }
+
+  private parseFactor(): Expr {
+    let base = this.parsePrimary()
+    while (isCh(this.peek(), '^')) {
+      this.i++
+      const arg = this.peek()
+      if (!arg) throw new ParseFail('"^" without an exponent')
+      this.i++
+      const e = readInteger(childrenOf(arg))
+      if (e === undefined) throw new ParseFail(`exponent ${describeNodes(childrenOf(arg))} is not a non-negative integer`)
+      base = { type: 'power', base, exponent: e }
+    }
+    return base
+  }
+
+  /** Read `_x` and `^y` after a head, in either order. */
+  private readScripts(): { sub?: MathNode[]; sup?: MathNode[] } {
+    const out: { sub?: MathNode[]; sup?: MathNode[] } = {}
+    for (;;) {
+      const n = this.peek()
+      const which = isCh(n, '_') ? 'sub' : isCh(n, '^') ? 'sup' : undefined
+      if (!which || out[which]) return out
+      const arg = this.peek(1)
+      if (!arg) throw new ParseFail(`"${n && (n as { v: string }).v}" without an argument`)
+      this.i += 2
+      out[which] = childrenOf(arg)
+    }
+  }
+
+  /** If a parenthesised list follows, return its content (without consuming unless `consume`). */
+  private parenthesised(): { content: MathNode[]; length: number } | undefined {
+    const n = this.peek()
+    let open = 1
+    let close: (m: MathNode) => boolean
+    if (isCh(n, '(')) close = m => isCh(m, ')')
+    else if (isCs(n, 'left') && isCh(this.peek(1), '(')) {
+      open = 2
+      close = m => isCs(m, 'right')
+    } else return undefined
+    let depth = 0
+    for (let j = this.i + open; j < this.nodes.length; j++) {
+      const m = this.nodes[j]!
+      if (isCh(m, '(') || isCs(m, 'left')) depth++
+      else if (depth > 0 && (isCh(m, ')') || isCs(m, 'right'))) {
+        depth--
+        if (isCs(m, 'right')) j++
+      } else if (depth === 0 && close(m)) {
+        const length = j - this.i + (open === 2 ? 2 : 1)
+        return { content: this.nodes.slice(this.i + open, j), length }
+      }
+    }
+    throw new ParseFail('unbalanced "("')
+  }
+
+  private parsePrimary(): Expr {
+    const n = this.peek()
+    if (!n) throw new ParseFail('missing operand at the end')
+    if (isDigit(n)) {
+      let s = ''
+      while (isDigit(this.peek())) s += (this.nodes[this.i++] as { v: string }).v
+      return { type: 'integer', value: BigInt(s).toString() }
+    }
+    const paren = this.parenthesised()
+    if (paren) {
+      this.i += paren.length
+      return this.sub(paren.content)
+    }
+    if (n.k === 'group') {
+      this.i++
+      return this.sub(n.children)
+    }
+    if (n.k === 'env') {
+      if (n.name === 'vmatrix' || n.name === 'Vmatrix') {
+        this.i++
+        return this.determinant(n)
+      }
+      throw new ParseFail(MATRIX_ENVS.has(n.name) ? `a matrix (${n.name}) is not a value; write \\det or use vmatrix` : `unsupported environment ${n.name}`)
+    }
+    if (n.k === 'ch') {
+      this.i++
+      switch (n.v) {
+        case 'x':
+        case 'y':
+          return this.variable(n.v)
+        case 'F':
+          return this.stanley()
+        case 's':
+          return this.symmetric('schur', n)
+        case 'e':
+          return this.symmetric('elementary', n)
+        case 'h':
+          return this.symmetric('complete', n)
+        case 'm':
+          return this.symmetric('monomial', n)
+        case 'p':
+          return this.symmetric('powerSum', n)
+        case 'c':
+          return this.coefficient()
+        case 'K':
+          return this.kostka()
+        case '|':
+          return this.countBetweenBars(m => isCh(m, '|'))
+      }
+      throw new ParseFail(`unknown symbol ${n.v}`)
+    }
+    // control sequence
+    this.i++
+    const object = this.ctx.notation.get(n.v)
+    if (object) return this.notationObject(object)
+    switch (n.v) {
+      case 'mathfrak': {
+        const arg = this.peek()
+        const letter = arg ? plainText(childrenOf(arg)).trim() : ''
+        this.i++
+        if (letter === 'S') return this.schubertLike('schubert')
+        if (letter === 'G') return this.schubertLike('grothendieck')
+        throw new ParseFail(`unknown symbol \\mathfrak{${letter}}`)
+      }
+      case 'ell':
+        return this.lengthOf()
+      case '#':
+        return this.countAfterHash()
+      case 'lvert':
+        return this.countBetweenBars(m => isCs(m, 'rvert'))
+      case 'left':
+        if (isCh(this.peek(), '|')) {
+          this.i++
+          return this.countBetweenBars(m => isCs(m, 'right'), true)
+        }
+        break
+      case 'partial':
+        return this.dividedDifference()
+      case 'det':
+        return this.detOperator()
+    }
+    if (UNSUPPORTED_OPERATORS.has(n.v)) throw new ParseFail(`unsupported notation \\${n.v}`)
+    if (NAME_COMMANDS.has(n.v) && this.peek()?.k === 'group') {
+      const name = plainText(childrenOf(this.peek()!)).trim()
+      throw new ParseFail(`unknown symbol \\${n.v}{${name}}`)
+    }
+    throw new ParseFail(`unknown symbol \\${n.v}`)
+  }
+
+  private variable(name: 'x' | 'y'): Expr {
+    const { sub, sup } = this.readScripts()
+    if (sup) this.i -= 2 // leave the power to parseFactor
+    if (!sub) throw new ParseFail(`variable ${name} without an index`)
+    const index = readInteger(sub)
+    if (index === undefined || index < 1) throw new ParseFail(`index ${describeNodes(sub)} of ${name} is not a positive integer`)
+    this.meaningful = true
+    return { type: 'variable', name, index }
+  }
+
+  private notationObject(object: NotationObject): Expr {
+    this.recognised = true
+    switch (object) {
+      case 'schubert':
+        return this.schubertLike('schubert')
+      case 'grothendieck':
+        return this.schubertLike('grothendieck')
+      case 'stanley':
+        return this.stanley()
+      case 'schur':
+        return this.symmetric('schur')
+      case 'elementary':
+        return this.symmetric('elementary')
+      case 'complete':
+        return this.symmetric('complete')
+      case 'monomial':
+        return this.symmetric('monomial')
+      case 'powersum':
+        return this.symmetric('powerSum')
+    }
+  }
+
+  private permutationFromScript(sub: MathNode[] | undefined, what: string): PermutationSpec {
+    if (!sub) throw new ParseFail(`${what} without a permutation subscript`)
+    return readPermutation(sub, this.ctx, this.used)
+  }
+
+  private schubertLike(type: 'schubert' | 'grothendieck'): Expr {
+    this.recognised = true
+    const what = type === 'schubert' ? '\\mathfrak{S}' : '\\mathfrak{G}'
+    const { sub, sup } = this.readScripts()
+    if (sup) throw new ParseFail(`superscript on ${what} is not supported`)
+    const perm = this.permutationFromScript(sub, what)
+    const args = this.variableArguments()
+    this.meaningful = true
+    const obj: Expr = { type, perm, variant: args.kind === 'double' ? 'double' : 'single' }
+    if (args.kind === 'ones') return { type: 'evaluateAtOnes', arg: obj, variableCount: args.count }
+    return obj
+  }
+
+  /**
+   * Optional variables after an object: (x), (x;y), (x,y), (\mathbf x;\mathbf y), (x_1,…,x_n),
+   * or (1,…,1). A parenthesis that is none of these is left for multiplication.
+   */
+  private variableArguments(): { kind: 'none' | 'single' | 'double' | 'ones'; count?: number } {
+    const paren = this.parenthesised()
+    if (!paren) return { kind: 'none' }
+    const content = paren.content
+    const groups = splitAt(content, m => isCh(m, ';'))
+    const items = groups.flatMap(g => splitCommas(g))
+    const letters = items.map(it => variableLetter(it))
+    let result: { kind: 'none' | 'single' | 'double' | 'ones'; count?: number } | undefined
+    if (letters.every(l => l !== undefined)) {
+      const set = new Set(letters.map(l => l!.letter))
+      if (set.size === 1 && set.has('x')) result = { kind: 'single', count: countOf(letters) }
+      else if (set.size === 2 && set.has('x') && set.has('y')) result = { kind: 'double' }
+    } else if (items.every(it => isOne(it) || isDots(it)) && items.some(isOne)) {
+      const hasDots = items.some(isDots)
+      result = { kind: 'ones', count: hasDots ? undefined : items.length }
+    }
+    if (!result) return { kind: 'none' }
+    this.i += paren.length
+    return result
+  }
+
+  private stanley(): Expr {
+    const { sub, sup } = this.readScripts()
+    if (!sub || sup) throw new ParseFail('unknown symbol F')
+    this.recognised = true
+    const perm = this.permutationFromScript(sub, 'F')
+    this.variableArguments()
+    this.meaningful = true
+    return { type: 'stanley', perm }
+  }
+
+  private symmetric(family: SymmetricFamily, letterNode?: MathNode): Expr {
+    const { sub, sup } = this.readScripts()
+    const letter = { schur: 's', elementary: 'e', complete: 'h', monomial: 'm', powerSum: 'p' }[family]
+    if (!sub) throw new ParseFail(`unknown symbol ${letterNode ? letter : 'macro'}`)
+    if (sup) this.i -= 2
+    this.recognised = true
+    let index: Partition
+    if (family === 'elementary' || family === 'complete' || family === 'powerSum') {
+      const k = readInteger(sub)
+      if (k === undefined) throw new ParseFail(`index ${describeNodes(sub)} of ${letter} is not an integer`)
+      index = k === 0 ? [] : [k]
+    } else index = readPartition(sub, this.ctx, this.used)
+    const args = this.variableArguments()
+    this.meaningful = true
+    const obj: Expr = { type: 'symmetric', family, index }
+    if (args.kind === 'single' && args.count !== undefined) obj.variableCount = args.count
+    else if (args.kind === 'single') throw new ParseFail(`number of variables of ${letter}_{…}(x_1,…) is unclear; write x_1,\\dots,x_4`)
+    else if (args.kind === 'double') throw new ParseFail(`${letter} in two sets of variables is not supported`)
+    if (args.kind === 'ones') return { type: 'evaluateAtOnes', arg: obj, variableCount: args.count }
+    return obj
+  }
+
+  private lengthOf(): Expr {
+    this.recognised = true
+    const paren = this.parenthesised()
+    if (!paren) throw new ParseFail('\\ell without (w)')
+    this.i += paren.length
+    this.meaningful = true
+    return { type: 'length', perm: readPermutation(paren.content, this.ctx, this.used) }
+  }
+
+  private countedSet(nodes: MathNode[]): Expr {
+    // \mathrm{BPD}(w), \operatorname{Red}(2143), \text{PD}(w)
+    let j = 0
+    const head = nodes[j]
+    if (!head) throw new ParseFail('nothing to count')
+    let name: string | undefined
+    if (head.k === 'cs' && NAME_COMMANDS.has(head.v) && nodes[j + 1]) {
+      name = plainText(childrenOf(nodes[j + 1]!)).trim()
+      j += 2
+    } else if (head.k === 'ch') {
+      name = ''
+      while (nodes[j]?.k === 'ch' && /^[A-Za-z]$/.test((nodes[j] as { v: string }).v)) name += (nodes[j++] as { v: string }).v
+    }
+    const objects = name !== undefined ? COUNT_NAMES[name] : undefined
+    if (!objects) throw new ParseFail(`unknown set ${name ? name : describe(head)} to count (known: BPD, PD, Red)`)
+    this.recognised = true
+    const rest = nodes.slice(j)
+    let permNodes: MathNode[] | undefined
+    if (isCh(rest[0], '(') && isCh(rest[rest.length - 1], ')')) permNodes = rest.slice(1, -1)
+    else if (isCs(rest[0], 'left') && isCs(rest[rest.length - 2], 'right')) permNodes = rest.slice(2, -2)
+    else if (isCh(rest[0], '_') && rest.length === 2) permNodes = childrenOf(rest[1]!)
+    if (!permNodes) throw new ParseFail(`cannot read the permutation of ${name}`)
+    this.meaningful = true
+    return { type: 'count', objects, perm: readPermutation(permNodes, this.ctx, this.used) }
+  }
+
+  private countAfterHash(): Expr {
+    // \# followed by the set: take the head, its argument and one parenthesised list or subscript.
+    const start = this.i
+    const head = this.peek()
+    if (!head) throw new ParseFail('\\# without a set')
+    let j = this.i + (head.k === 'cs' && NAME_COMMANDS.has(head.v) ? 2 : 1)
+    if (head.k === 'ch') while (this.nodes[j]?.k === 'ch' && /^[A-Za-z]$/.test((this.nodes[j] as { v: string }).v)) j++
+    this.i = j
+    const paren = this.parenthesised()
+    if (paren) j += paren.length
+    else if (isCh(this.nodes[j], '_')) j += 2
+    this.i = j
+    return this.countedSet(this.nodes.slice(start, j))
+  }
+
+  private countBetweenBars(isClose: (m: MathNode) => boolean, leftRight = false): Expr {
+    let j = this.i
+    while (j < this.nodes.length && !isClose(this.nodes[j]!)) j++
+    if (j >= this.nodes.length) throw new ParseFail('unclosed "|"')
+    const inner = this.nodes.slice(this.i, j)
+    this.i = j + (leftRight ? 2 : 1)
+    return this.countedSet(inner)
+  }
+
+  private coefficient(): Expr {
+    const { sub, sup } = this.readScripts()
+    if (!sub || !sup) throw new ParseFail('unknown symbol c')
+    this.recognised = true
+    const lower = splitPair(sub)
+    if (!lower) throw new ParseFail(`cannot split the subscript of c into two indices; separate them with a comma`)
+    this.meaningful = true
+    return readCoefficient(lower[0], lower[1], sup, this.ctx, this.used)
+  }
+
+  private kostka(): Expr {
+    const { sub, sup } = this.readScripts()
+    if (!sub || sup) throw new ParseFail('unknown symbol K')
+    this.recognised = true
+    const pair = splitPair(sub)
+    if (!pair) throw new ParseFail('cannot split the subscript of K into shape and content; separate them with a comma')
+    this.meaningful = true
+    return {
+      type: 'kostka',
+      shape: readPartition(pair[0], this.ctx, this.used),
+      content: readPartition(pair[1], this.ctx, this.used),
+    }
+  }
+
+  private dividedDifference(): Expr {
+    this.recognised = true
+    const { sub, sup } = this.readScripts()
+    if (sup) throw new ParseFail('powers of \\partial are not supported')
+    const index = sub ? readInteger(sub) : undefined
+    if (index === undefined || index < 1) throw new ParseFail('\\partial needs a positive integer index, as in \\partial_1')
+    if (!this.startsFactor(this.peek())) throw new ParseFail(`\\partial_${index} is applied to nothing`)
+    const arg = this.parseProduct()
+    this.meaningful = true
+    return { type: 'dividedDifference', index, arg }
+  }
+
+  private detOperator(): Expr {
+    this.recognised = true
+    const n = this.peek()
+    if (n?.k === 'env' && MATRIX_ENVS.has(n.name)) {
+      this.i++
+      return this.determinant(n)
+    }
+    const paren = this.parenthesised()
+    if (paren) {
+      const inner = paren.content
+      if (inner.length === 1 && inner[0]!.k === 'env' && MATRIX_ENVS.has(inner[0]!.name)) {
+        this.i += paren.length
+        return this.determinant(inner[0]!)
+      }
+    }
+    throw new ParseFail('\\det must be followed by a matrix environment')
+  }
+
+  private determinant(env: MathNode): Expr {
+    this.recognised = true
+    const rows: Expr[][] = []
+    let cur: MathNode[][] = [[]]
+    const flush = () => {
+      if (cur.some(c => c.length)) rows.push(cur.map(c => this.sub(c)))
+      cur = [[]]
+    }
+    for (const m of childrenOf(env)) {
+      if (isCs(m, '\\') || isCs(m, 'cr')) flush()
+      else if (isCh(m, '&')) cur.push([])
+      else cur[cur.length - 1]!.push(m)
+    }
+    flush()
+    if (!rows.length || rows.some(r => r.length !== rows.length)) {
+      throw new ParseFail(`the matrix is not square (${rows.length} rows, row lengths ${rows.map(r => r.length).join(', ')})`)
+    }
+    this.meaningful = true
+    return { type: 'determinant', rows }
+  }
+}
+
+function describeNodes(nodes: MathNode[]): string {
+  return nodes.map(describe).join('') || '(empty)'
+}
+
+function splitAt(nodes: MathNode[], isSep: (m: MathNode) => boolean): MathNode[][] {
+  const out: MathNode[][] = [[]]
+  for (const n of nodes) {
+    if (isSep(n)) out.push([])
+    else out[out.length - 1]!.push(n)
+  }
+  return out
+}
+
+function variableLetter(item: MathNode[]): { letter: 'x' | 'y'; index?: number; dots?: boolean } | undefined {
+  const ns = unwrap(item).filter(n => !(n.k === 'cs' && (n.v === 'mathbf' || n.v === 'boldsymbol' || n.v === 'bm')))
+  if (ns.length === 1 && ns[0]!.k === 'group') return variableLetter(ns[0]!.children)
+  if (isDots(ns)) return { letter: 'x', dots: true }
+  const first = ns[0]
+  if (!first) return undefined
+  const letter = first.k === 'ch' && (first.v === 'x' || first.v === 'y') ? first.v : first.k === 'group' ? plainText(first.children) : undefined
+  if (letter !== 'x' && letter !== 'y') return undefined
+  if (ns.length === 1) return { letter }
+  if (ns.length === 3 && isCh(ns[1], '_')) {
+    const index = readInteger(childrenOf(ns[2]!))
+    if (index !== undefined) return { letter, index }
+    return { letter }
+  }
+  return undefined
+}
+
+/** x_1,…,x_n → n; x_1,x_2,x_3 → 3; unclear → undefined. */
+function countOf(letters: ({ letter: 'x' | 'y'; index?: number; dots?: boolean } | undefined)[]): number | undefined {
+  const indices = letters.filter(l => l && !l.dots).map(l => l!.index)
+  if (indices.some(i => i === undefined)) return undefined
+  const last = indices[indices.length - 1]
+  if (last === undefined) return undefined
+  if (letters.some(l => l?.dots)) return indices[0] === 1 ? last : undefined
+  return indices.every((v, k) => v === k + 1) ? last : undefined
+}
+
+function isOne(item: MathNode[]): boolean {
+  const ns = unwrap(item)
+  return ns.length === 1 && isCh(ns[0], '1')
+}
+
+function isDots(item: MathNode[]): boolean {
+  const ns = unwrap(item)
+  if (ns.length === 1 && ns[0]!.k === 'cs' && ['dots', 'ldots', 'cdots', 'dotsc', 'dotsb'].includes(ns[0]!.v)) return true
+  return ns.length === 3 && ns.every(n => isCh(n, '.'))
+}
+
+/** Split `u,v` or `\lambda\mu` (two symbols) into two node lists. */
+function splitPair(nodes: MathNode[]): [MathNode[], MathNode[]] | undefined {
+  const ns = unwrap(nodes)
+  const parts = splitCommas(ns)
+  if (parts.length === 2) return [parts[0]!, parts[1]!]
+  if (parts.length === 1 && ns.length === 2 && symbolName(ns[0]) && symbolName(ns[1]) && !isDigit(ns[0]) && !isDigit(ns[1])) {
+    return [[ns[0]!], [ns[1]!]]
+  }
+  return undefined
+}
+
+function lookupSymbol(nodes: MathNode[], ctx: ParseContext): { name: string; value?: ContextValue } | undefined {
+  const ns = unwrap(nodes)
+  let name = symbolName(ns[0])
+  if (!name || ns.length > 2) return undefined
+  if (ns.length === 2) {
+    if (!isCh(ns[1], "'")) return undefined
+    name += "'"
+  }
+  return { name, value: ctx.bindings.get(name) }
+}
+
+/**
+ * Read a permutation: bound symbol, one-line digits, [..] or (..) lists, cycles, words in s_i, w_0.
+ * Example: the nodes of `2143` give `{ form: 'oneLine', entries: [2, 1, 4, 3] }`.
+ */
+export function readPermutation(nodes: MathNode[], ctx: ParseContext, used: Map<string, ContextValue>): PermutationSpec {
+  const ns = unwrap(nodes)
+  if (!ns.length) throw new ParseFail('empty permutation')
+  const sym = lookupSymbol(ns, ctx)
+  if (sym && !(ns.length === 1 && isDigit(ns[0]))) {
+    if (sym.value?.kind === 'permutation') {
+      used.set(sym.name, sym.value)
+      return sym.value.perm
+    }
+    if (sym.value) throw new ParseFail(`${sym.name} is bound to a ${sym.value.kind}, not a permutation`)
+    throw new ParseFail(`permutation ${sym.name} is not bound (write "Let $${sym.name} = 2143$" before the claim)`)
+  }
+  // w_0, w_0^{(n)}
+  if (isCh(ns[0], 'w') && ns.length >= 3) {
+    let sub: MathNode[] | undefined
+    let sup: MathNode[] | undefined
+    for (let j = 1; j + 1 < ns.length; j += 2) {
+      if (isCh(ns[j], '_')) sub = childrenOf(ns[j + 1]!)
+      else if (isCh(ns[j], '^')) sup = childrenOf(ns[j + 1]!)
+      else throw new ParseFail(`cannot read ${describeNodes(ns)} as a permutation`)
+    }
+    if (readInteger(sub ?? []) === 0 && ns.length % 2 === 1) {
+      let n: number | undefined
+      if (sup) {
+        const inner = unwrap(sup)
+        const stripped = isCh(inner[0], '(') && isCh(inner[inner.length - 1], ')') ? inner.slice(1, -1) : inner
+        n = readInteger(stripped)
+        if (n === undefined) throw new ParseFail(`cannot read n in w_0^{${describeNodes(sup)}}`)
+      } else {
+        const bound = ctx.bindings.get('n')
+        if (bound?.kind !== 'integer') throw new ParseFail('w_0 needs n: write w_0^{(n)} or bind n ("Let $n = 4$")')
+        used.set('n', bound)
+        n = bound.value
+      }
+      if (n < 1) throw new ParseFail('w_0 needs n ≥ 1')
+      return { form: 'longest', n }
+    }
+    throw new ParseFail(`cannot read ${describeNodes(ns)} as a permutation`)
+  }
+  // s_1 s_2 s_1
+  if (isCh(ns[0], 's') && isCh(ns[1], '_')) {
+    const letters: number[] = []
+    for (let j = 0; j < ns.length; j += 3) {
+      if (!isCh(ns[j], 's') || !isCh(ns[j + 1], '_') || !ns[j + 2]) throw new ParseFail(`cannot read ${describeNodes(ns)} as a word in simple transpositions`)
+      const k = readInteger(childrenOf(ns[j + 2]!))
+      if (k === undefined || k < 1) throw new ParseFail(`s_{${describeNodes(childrenOf(ns[j + 2]!))}} is not a simple transposition`)
+      letters.push(k)
+    }
+    return { form: 'word', letters }
+  }
+  if (ns.every(isDigit)) return checkOneLine(ns.map(n => Number((n as { v: string }).v)))
+  if (isCh(ns[0], '[') && isCh(ns[ns.length - 1], ']')) return checkOneLine(readEntries(ns.slice(1, -1)))
+  if (isCh(ns[0], '(')) {
+    const cycles: number[][] = []
+    let j = 0
+    while (j < ns.length) {
+      if (!isCh(ns[j], '(')) throw new ParseFail(`cannot read ${describeNodes(ns)} as a permutation`)
+      let k = j + 1
+      while (k < ns.length && !isCh(ns[k], ')')) k++
+      if (k >= ns.length) throw new ParseFail('unbalanced "(" in a permutation')
+      cycles.push(readEntries(ns.slice(j + 1, k)))
+      j = k + 1
+    }
+    if (cycles.length === 1) {
+      const only = cycles[0]!
+      const bound = ctx.bindings.get('n')
+      const nOk = bound?.kind !== 'integer' || bound.value === only.length
+      if (only.length >= 3 && isPermutationOfOneToN(only) && nOk) return { form: 'oneLine', entries: only }
+    }
+    const seen = new Set<number>()
+    for (const c of cycles) {
+      for (const v of c) {
+        if (v < 1 || seen.has(v)) throw new ParseFail(`cycles ${describeNodes(ns)} repeat an entry or contain 0`)
+        seen.add(v)
+      }
+    }
+    return { form: 'cycles', cycles }
+  }
+  if (splitCommas(ns).length > 1) return checkOneLine(readEntries(ns))
+  throw new ParseFail(`cannot read ${describeNodes(ns)} as a permutation`)
+}
+
+function readEntries(nodes: MathNode[]): number[] {
+  const items = splitCommas(nodes)
+  if (items.length === 1) {
+    // digits written together or with spacing: one entry each
+    const only = unwrap(items[0]!)
+    if (!only.length || !only.every(isDigit)) throw new ParseFail(`cannot read ${describeNodes(nodes)} as a list of numbers`)
+    return only.map(n => Number((n as { v: string }).v))
+  }
+  return items.map(it => {
+    const v = readInteger(it)
+    if (v === undefined) throw new ParseFail(`"${describeNodes(it)}" is not a number`)
+    return v
+  })
+}
+
+function isPermutationOfOneToN(entries: number[]): boolean {
+  const seen = new Set(entries)
+  return seen.size === entries.length && entries.every(v => v >= 1 && v <= entries.length)
+}
+
+function checkOneLine(entries: number[]): PermutationSpec {
+  if (!isPermutationOfOneToN(entries)) throw new ParseFail(`${entries.join(entries.some(v => v > 9) ? ',' : '')} is not a permutation of 1..${entries.length}`)
+  return { form: 'oneLine', entries }
+}
+
+/** Read a partition: `21`, `2,1`, `(2,1)`, `(2,1^2)`, a bound \lambda, or \emptyset. */
+export function readPartition(nodes: MathNode[], ctx: ParseContext, used: Map<string, ContextValue>): Partition {
+  let ns = unwrap(nodes)
+  const sym = lookupSymbol(ns, ctx)
+  if (sym && !isDigit(ns[0])) {
+    if (sym.value?.kind === 'partition') {
+      used.set(sym.name, sym.value)
+      return sym.value.parts
+    }
+    if (ns.length === 1 && (isCs(ns[0], 'emptyset') || isCs(ns[0], 'varnothing'))) return []
+    if (sym.value) throw new ParseFail(`${sym.name} is bound to a ${sym.value.kind}, not a partition`)
+    throw new ParseFail(`partition ${sym.name} is not bound (write "Let $${sym.name} = (2,1)$" before the claim)`)
+  }
+  if (isCh(ns[0], '(') && isCh(ns[ns.length - 1], ')')) ns = ns.slice(1, -1)
+  let parts: number[]
+  const items = splitCommas(ns)
+  if (items.length === 1 && unwrap(items[0]!).every(isDigit)) {
+    parts = unwrap(items[0]!).map(n => Number((n as { v: string }).v))
+    if (parts.length > 1 && parts.includes(0)) throw new ParseFail(`${parts.join('')} is ambiguous as a partition; write parts of 10 or more with commas`)
+  } else {
+    parts = []
+    for (const it of items) {
+      const u = unwrap(it)
+      const hat = u.findIndex(m => isCh(m, '^'))
+      if (hat > 0) {
+        const part = readInteger(u.slice(0, hat))
+        const times = readInteger(u.slice(hat + 1))
+        if (part === undefined || times === undefined) throw new ParseFail(`"${describeNodes(it)}" is not a part`)
+        for (let r = 0; r < times; r++) parts.push(part)
+      } else {
+        const v = readInteger(u)
+        if (v === undefined) throw new ParseFail(`"${describeNodes(it)}" is not a part of a partition`)
+        parts.push(v)
+      }
+    }
+  }
+  while (parts.length && parts[parts.length - 1] === 0) parts.pop()
+  for (let j = 0; j < parts.length; j++) {
+    if (parts[j]! < 1 || (j > 0 && parts[j]! > parts[j - 1]!)) throw new ParseFail(`(${parts.join(',')}) is not a partition (parts must be positive and weakly decreasing)`)
+  }
+  return parts
+}
+
+function readCoefficient(
+  a: MathNode[],
+  b: MathNode[],
+  top: MathNode[],
+  ctx: ParseContext,
+  used: Map<string, ContextValue>,
+): Expr {
+  const tryRead = <T>(f: () => T): T | undefined => {
+    try {
+      return f()
+    } catch (e) {
+      if (e instanceof ParseFail) return undefined
+      throw e
+    }
+  }
+  const scratch = new Map<string, ContextValue>()
+  const lambda = tryRead(() => readPartition(a, ctx, scratch))
+  const mu = tryRead(() => readPartition(b, ctx, scratch))
+  const nu = tryRead(() => readPartition(top, ctx, scratch))
+  const size = (p: number[]) => p.reduce((s, v) => s + v, 0)
+  const partitionsFit = lambda && mu && nu && size(nu) === size(lambda) + size(mu)
+  if (partitionsFit) {
+    for (const [k, v] of scratch) used.set(k, v)
+    return { type: 'littlewoodRichardson', lambda, mu, nu }
+  }
+  const pu = tryRead(() => readPermutation(a, ctx, scratch))
+  const pv = tryRead(() => readPermutation(b, ctx, scratch))
+  const pw = tryRead(() => readPermutation(top, ctx, scratch))
+  if (pu && pv && pw) {
+    for (const [k, v] of scratch) used.set(k, v)
+    return { type: 'structureConstant', u: pu, v: pv, w: pw }
+  }
+  if (lambda && mu && nu) {
+    for (const [k, v] of scratch) used.set(k, v)
+    return { type: 'littlewoodRichardson', lambda, mu, nu }
+  }
+  // Re-run one reader to surface its reason.
+  readPermutation(a, ctx, new Map())
+  readPermutation(b, ctx, new Map())
+  readPermutation(top, ctx, new Map())
+  throw new ParseFail('cannot read the indices of c as partitions or permutations')
+}
+
+/** If `nodes` is `symbol = …` with a bindable symbol, the symbol's name. */
+export function bindableSymbol(nodes: MathNode[]): { name: string; family: 'permutation' | 'partition' | 'integer' } | undefined {
+  const ns = unwrap(nodes)
+  let name = symbolName(ns[0])
+  if (!name) return undefined
+  if (ns.length === 2 && isCh(ns[1], "'")) name += "'"
+  else if (ns.length !== 1) return undefined
+  if (name === 'n' || name === 'k' || name === 'm') return { name, family: 'integer' }
+  if (PARTITION_SYMBOLS.has(name)) return { name, family: 'partition' }
+  const base = name.replace(/'$/, '')
+  if (PERMUTATION_SYMBOLS.has(base) && base !== 'x' && base !== 'y' && base !== 'z') return { name, family: 'permutation' }
+  return undefined
+}

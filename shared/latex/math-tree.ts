@@ -1,0 +1,322 @@
+/**
+ * Math as a tree, cut into rows, statements and relation chains.
+ *
+ * Conventions: spacing commands and whitespace are dropped; braces become `group` nodes and
+ * \begin…\end become `env` nodes; alignment structure (aligned, split, gathered) is dissolved
+ * into the rows of the display around it. Matrices stay whole (they are determinant entries).
+ * Every node keeps `pos`/`end` from its tokens: offsets in the original file.
+ */
+import { splitRuns, type Token } from './tokens'
+
+export type MathNode =
+  | { k: 'cs'; v: string; pos: number; end: number }
+  | { k: 'ch'; v: string; pos: number; end: number }
+  | { k: 'group'; children: MathNode[]; pos: number; end: number }
+  | { k: 'env'; name: string; children: MathNode[]; pos: number; end: number }
+
+/** True if `n` is the character `v`: `isChar({ k: 'ch', v: '=', pos: 0, end: 1 }, '=') === true`. */
+export function isChar(n: MathNode | undefined, v: string): boolean {
+  return !!n && n.k === 'ch' && n.v === v
+}
+
+export class MathSyntaxError extends Error {
+  constructor(message: string, readonly pos: number) {
+    super(message)
+  }
+}
+
+/** Commands that only change spacing or size: dropped. */
+const SPACING = new Set([
+  ',', ';', '!', ':', ' ', '>', 'thinspace', 'medspace', 'thickspace', 'negthinspace', 'displaystyle', 'textstyle',
+  'scriptstyle', 'limits', 'nolimits', 'big', 'Big', 'bigg', 'Bigg', 'bigl', 'bigr', 'Bigl', 'Bigr', 'biggl', 'biggr',
+  'Biggl', 'Biggr', 'bigm', 'Bigm', 'nonumber', 'notag', 'allowbreak', 'nobreak', 'relax', 'noindent', 'protect',
+])
+/** Commands with one argument that only change spacing: dropped with their argument. */
+const SPACING_WITH_ARG = new Set(['hspace', 'vspace', 'hspace*', 'phantom', 'hphantom', 'vphantom', 'intertext', 'shortintertext'])
+/** Environments whose rows are rows of the surrounding display. */
+const DISSOLVED_ENVS = new Set(['aligned', 'split', 'gathered', 'alignedat', 'multlined', 'gather', 'align', 'align*', 'gather*', 'eqnarray', 'eqnarray*'])
+export const MATRIX_ENVS = new Set(['matrix', 'pmatrix', 'bmatrix', 'Bmatrix', 'vmatrix', 'Vmatrix', 'smallmatrix', 'array'])
+
+/** Build the tree from a math region's tokens; throws MathSyntaxError on unbalanced braces or environments. */
+export function buildMathTree(tokens: Token[]): MathNode[] {
+  const toks = splitRuns(tokens).filter(t => t.k !== 'sp' && t.k !== 'par')
+  const root: MathNode[] = []
+  const stack: { node: MathNode & { children: MathNode[] }; open: Token }[] = []
+  const top = () => (stack.length ? stack[stack.length - 1]!.node.children : root)
+  const readName = (i: number): { name: string; next: number } | undefined => {
+    const open = toks[i]
+    if (!open || open.k !== 'ch' || open.v !== '{') return undefined
+    let name = ''
+    let j = i + 1
+    while (j < toks.length && !(toks[j]!.k === 'ch' && toks[j]!.v === '}')) {
+      const t = toks[j]!
+      name += t.k === 'cs' ? '\\' + t.v : t.v
+      j++
+      if (j - i > 40) return undefined
+    }
+    if (j >= toks.length) return undefined
+    return { name: name.trim(), next: j + 1 }
+  }
+  for (let i = 0; i < toks.length; i++) {
+    const t = toks[i]!
+    if (t.k === 'ch' && t.v === '{') {
+      const g: MathNode & { children: MathNode[] } = { k: 'group', children: [], pos: t.pos, end: t.end }
+      top().push(g)
+      stack.push({ node: g, open: t })
+    } else if (t.k === 'ch' && t.v === '}') {
+      const s = stack.pop()
+      if (!s || s.node.k !== 'group') throw new MathSyntaxError('unbalanced braces: "}" without a matching "{"', t.pos)
+      s.node.end = Math.max(s.node.end, t.end)
+    } else if (t.k === 'cs' && (t.v === 'begin' || t.v === 'end')) {
+      const r = readName(i + 1)
+      if (!r) throw new MathSyntaxError(`\\${t.v} without an environment name`, t.pos)
+      if (t.v === 'begin') {
+        const e: MathNode & { children: MathNode[] } = { k: 'env', name: r.name, children: [], pos: t.pos, end: t.end }
+        top().push(e)
+        stack.push({ node: e, open: t })
+        i = r.next - 1
+        // Column specifications of array and alignedat are not content.
+        if ((r.name === 'array' || r.name === 'alignedat' || r.name === 'alignat' || r.name === 'alignat*') && toks[i + 1]?.v === '{') {
+          let depth = 0
+          for (i = i + 1; i < toks.length; i++) {
+            if (toks[i]!.v === '{' && toks[i]!.k === 'ch') depth++
+            if (toks[i]!.v === '}' && toks[i]!.k === 'ch' && --depth === 0) break
+          }
+        }
+      } else {
+        const s = stack.pop()
+        if (!s || s.node.k !== 'env' || s.node.name !== r.name) {
+          throw new MathSyntaxError(`\\end{${r.name}} does not match ${s ? (s.node.k === 'env' ? `\\begin{${s.node.name}}` : 'an open "{"') : 'any \\begin'}`, t.pos)
+        }
+        s.node.end = toks[r.next - 1]!.end
+        i = r.next - 1
+      }
+    } else if (t.k === 'cs' && SPACING.has(t.v)) {
+      continue
+    } else if (t.k === 'ch' && t.v === '~') {
+      continue
+    } else {
+      top().push({ k: t.k === 'cs' ? 'cs' : 'ch', v: t.v, pos: t.pos, end: t.end })
+    }
+  }
+  if (stack.length) {
+    const s = stack[stack.length - 1]!
+    throw new MathSyntaxError(
+      s.node.k === 'env' ? `\\begin{${s.node.name}} is never closed` : 'unbalanced braces: "{" is never closed',
+      s.open.pos,
+    )
+  }
+  return dropSpacingArgs(root)
+}
+
+function dropSpacingArgs(nodes: MathNode[]): MathNode[] {
+  const out: MathNode[] = []
+  for (let i = 0; i < nodes.length; i++) {
+    const n = nodes[i]!
+    if (n.k === 'cs' && SPACING_WITH_ARG.has(n.v)) {
+      if (isChar(nodes[i + 1], '*')) i++
+      if (nodes[i + 1]?.k === 'group') i++
+      continue
+    }
+    if (n.k === 'group' || n.k === 'env') out.push({ ...n, children: dropSpacingArgs(n.children) })
+    else out.push(n)
+  }
+  return out
+}
+
+export interface MathRow {
+  nodes: MathNode[]
+  label?: string
+}
+
+/** Cut a display into rows at \\ (dissolving aligned/split/gathered), taking out labels, tags and &. */
+export function splitRows(nodes: MathNode[]): MathRow[] {
+  const flat: MathNode[] = []
+  const flatten = (ns: MathNode[]) => {
+    for (const n of ns) {
+      if (n.k === 'env' && DISSOLVED_ENVS.has(n.name)) {
+        flat.push({ k: 'cs', v: '\\', pos: n.pos, end: n.pos })
+        flatten(n.children)
+        flat.push({ k: 'cs', v: '\\', pos: n.end, end: n.end })
+      } else flat.push(n)
+    }
+  }
+  flatten(nodes)
+  const rows: MathRow[] = []
+  let cur: MathNode[] = []
+  let label: string | undefined
+  const endRow = () => {
+    if (cur.length) rows.push({ nodes: cur, label })
+    cur = []
+    label = undefined
+  }
+  for (let i = 0; i < flat.length; i++) {
+    const n = flat[i]!
+    if (n.k === 'cs' && (n.v === '\\' || n.v === 'cr')) {
+      endRow()
+      if (isChar(flat[i + 1], '*')) i++
+      if (isChar(flat[i + 1], '[')) {
+        // \\[3pt]: skip the spacing argument.
+        let j = i + 2
+        while (j < flat.length && !isChar(flat[j], ']')) j++
+        if (j < flat.length) i = j
+      }
+      continue
+    }
+    if (n.k === 'cs' && (n.v === 'label' || n.v === 'tag' || n.v === 'eqref')) {
+      const arg = flat[i + 1]
+      if (n.v === 'tag' && isChar(arg, '*')) i++
+      const a = flat[i + 1]
+      if (a?.k === 'group') {
+        if (n.v === 'label') label = plainText(a.children)
+        i++
+      }
+      continue
+    }
+    if (n.k === 'ch' && n.v === '&') continue
+    cur.push(n)
+  }
+  endRow()
+  return rows
+}
+
+/** Characters of a node list without markup: `plainText` of `{eq:a}`'s children is "eq:a". */
+export function plainText(nodes: MathNode[]): string {
+  let s = ''
+  for (const n of nodes) {
+    if (n.k === 'ch') s += n.v
+    else if (n.k === 'cs') s += n.v.length === 1 && !/[A-Za-z]/.test(n.v) ? n.v : ''
+    else s += plainText(n.children)
+  }
+  return s
+}
+
+/** Words in \text{…} that mark a break between two statements. */
+const PROSE_WORDS = new Set([
+  'and', 'or', 'where', 'for', 'with', 'since', 'so', 'hence', 'thus', 'then', 'if', 'while', 'i.e.', 'e.g.', 'also',
+  'whereas', 'but', 'because', 'as', 'when', 'by', 'using', 'we', 'get', 'have', 'gives', 'giving', 'yields',
+])
+const TEXT_COMMANDS = new Set(['text', 'textrm', 'mbox', 'textnormal', 'hbox', 'textup', 'textit', 'emph'])
+
+/** Relation symbols other than "=": a statement using one is not an equality claim. */
+const OTHER_RELATIONS = new Set([
+  'ne', 'neq', 'le', 'leq', 'ge', 'geq', 'leqslant', 'geqslant', 'lt', 'gt', 'equiv', 'approx', 'sim', 'simeq', 'cong',
+  'in', 'notin', 'subset', 'subseteq', 'supset', 'supseteq', 'to', 'mapsto', 'rightarrow', 'leftarrow', 'Rightarrow',
+  'Leftarrow', 'iff', 'implies', 'longrightarrow', 'mid', 'nmid', 'prec', 'preceq', 'succ', 'succeq', 'propto',
+  'coloneqq', 'eqqcolon', 'stackrel', 'overset', 'underset', 'triangleq', 'doteq', 'leftrightarrow', 'ni',
+])
+
+export type Relation = '=' | ':=' | 'other'
+
+export interface Statement {
+  /** Parts between relation symbols; an empty first part means the row continues the previous one. */
+  parts: MathNode[][]
+  /** relations[i] sits between parts[i] and parts[i+1]. */
+  relations: { rel: Relation; node: MathNode; name: string }[]
+}
+
+/**
+ * Cut a row into statements at \quad, \qquad, top-level commas and semicolons, and prose such as
+ * \text{and}; then each statement into parts at relation symbols.
+ */
+export function splitStatements(nodes: MathNode[]): Statement[] {
+  const statements: MathNode[][] = []
+  let cur: MathNode[] = []
+  let depth = 0
+  for (let i = 0; i < nodes.length; i++) {
+    const n = nodes[i]!
+    if (n.k === 'ch' && (n.v === '(' || n.v === '[')) depth++
+    else if (n.k === 'ch' && (n.v === ')' || n.v === ']')) depth = Math.max(0, depth - 1)
+    else if (n.k === 'cs' && n.v === 'left') depth++
+    else if (n.k === 'cs' && n.v === 'right') depth = Math.max(0, depth - 1)
+    let isBreak = false
+    if (n.k === 'cs' && (n.v === 'quad' || n.v === 'qquad')) isBreak = true
+    else if (depth === 0 && n.k === 'ch' && (n.v === ',' || n.v === ';')) isBreak = true
+    else if (n.k === 'cs' && TEXT_COMMANDS.has(n.v) && nodes[i + 1]?.k === 'group') {
+      const words = plainText((nodes[i + 1] as { children: MathNode[] }).children).trim().toLowerCase()
+      if (words === '' || PROSE_WORDS.has(words) || /\s/.test(words) || /^[.,;:]+$/.test(words)) {
+        isBreak = true
+        i++
+      }
+    }
+    if (isBreak) {
+      if (cur.length) statements.push(cur)
+      cur = []
+      continue
+    }
+    cur.push(n)
+  }
+  if (cur.length) statements.push(cur)
+  return statements.map(trimPunctuation).filter(s => s.length).map(toStatement)
+}
+
+function trimPunctuation(nodes: MathNode[]): MathNode[] {
+  let end = nodes.length
+  while (end > 0) {
+    const n = nodes[end - 1]!
+    if (n.k === 'ch' && (n.v === '.' || n.v === ',' || n.v === ';')) end--
+    else break
+  }
+  return nodes.slice(0, end)
+}
+
+function toStatement(nodes: MathNode[]): Statement {
+  const parts: MathNode[][] = [[]]
+  const relations: Statement['relations'] = []
+  let depth = 0
+  for (let i = 0; i < nodes.length; i++) {
+    const n = nodes[i]!
+    if (n.k === 'ch' && (n.v === '(' || n.v === '[')) depth++
+    else if (n.k === 'ch' && (n.v === ')' || n.v === ']')) depth = Math.max(0, depth - 1)
+    else if (n.k === 'cs' && n.v === 'left') depth++
+    else if (n.k === 'cs' && n.v === 'right') depth = Math.max(0, depth - 1)
+    let rel: Relation | undefined
+    let name = ''
+    if (depth === 0 && isChar(n, ':') && isChar(nodes[i + 1], '=')) {
+      rel = ':='
+      name = ':='
+      i++
+    } else if (depth === 0 && n.k === 'ch' && n.v === '=') {
+      rel = '='
+      name = '='
+    } else if (depth === 0 && n.k === 'ch' && (n.v === '<' || n.v === '>')) {
+      rel = 'other'
+      name = n.v
+    } else if (depth === 0 && n.k === 'cs' && OTHER_RELATIONS.has(n.v)) {
+      rel = n.v === 'coloneqq' ? ':=' : 'other'
+      name = '\\' + n.v
+      if (n.v === 'stackrel' || n.v === 'overset' || n.v === 'underset') i += 2
+    }
+    if (rel) {
+      relations.push({ rel, node: n, name })
+      parts.push([])
+    } else parts[parts.length - 1]!.push(n)
+  }
+  return { parts, relations }
+}
+
+/** LaTeX text of nodes (for expanded sources): `renderNodes` of the tree of `x_{1}` is "x_{1}". */
+export function renderNodes(nodes: MathNode[]): string {
+  let out = ''
+  for (const n of nodes) {
+    if (n.k === 'cs') {
+      const word = /^[A-Za-z@]+$/.test(n.v)
+      out += '\\' + n.v + (word ? ' ' : '')
+    } else if (n.k === 'ch') out += n.v
+    else if (n.k === 'group') out += '{' + renderNodes(n.children).trim() + '}'
+    else out += `\\begin{${n.name}}` + renderNodes(n.children) + `\\end{${n.name}}`
+  }
+  return out.replace(/ (?=[^A-Za-z@])/g, '').trim()
+}
+
+/** Smallest start and largest end offset of nodes. */
+export function spanOf(nodes: MathNode[]): { pos: number; end: number } | undefined {
+  if (!nodes.length) return undefined
+  let pos = Infinity
+  let end = -Infinity
+  for (const n of nodes) {
+    pos = Math.min(pos, n.pos)
+    end = Math.max(end, n.end)
+  }
+  return { pos, end }
+}

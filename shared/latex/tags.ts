@@ -1,0 +1,75 @@
+/**
+ * Tags: instructions an author leaves in LaTeX comments, so the compiled paper is unchanged.
+ *
+ * Syntax (documented with examples in docs/tags.md): a comment whose text starts with
+ * `scholium:` followed by directives separated by `;`:
+ *   skip                      do not check the claim(s) this tag is attached to
+ *   claim [kind]              this is a claim (report it even if unreadable), optionally of that kind
+ *   use <convention ids>      conventions for the attached claim(s) only
+ *   set <convention ids>      conventions from here to the end of the manuscript
+ *   \name means <object>      the macro \name denotes a Schubert-type object or symmetric function
+ * A tag at the end of a line attaches to claims on that line; a tag on a line of its own attaches
+ * to the next line that is not blank or a comment (and to every claim of a display starting there).
+ */
+import { axisOfConvention, type ConventionId } from '../types/conventions'
+import { CLAIM_KINDS, type ClaimKind } from '../types/claims'
+
+/** Objects a macro can be declared to mean. */
+export const NOTATION_OBJECTS = ['schubert', 'grothendieck', 'stanley', 'schur', 'elementary', 'complete', 'monomial', 'powersum'] as const
+export type NotationObject = (typeof NOTATION_OBJECTS)[number]
+
+export type TagDirective =
+  | { type: 'skip' }
+  | { type: 'claim'; kind?: ClaimKind }
+  | { type: 'use'; conventions: ConventionId[] }
+  | { type: 'set'; conventions: ConventionId[] }
+  | { type: 'means'; macro: string; object: NotationObject }
+
+export interface ParsedTag {
+  directives: TagDirective[]
+  errors: string[]
+}
+
+const TAG_PREFIX = /^\s*scholium\s*:/i
+
+/** True if a comment's text is a tag: `isTagComment(' scholium: skip') === true`. */
+export function isTagComment(text: string): boolean {
+  return TAG_PREFIX.test(text)
+}
+
+/** Parse a tag comment's text: `parseTag(' scholium: use xy-plus').directives[0]` is `{ type: 'use', conventions: ['xy-plus'] }`. */
+export function parseTag(text: string): ParsedTag {
+  const directives: TagDirective[] = []
+  const errors: string[] = []
+  const body = text.replace(TAG_PREFIX, '')
+  for (const part of body.split(';')) {
+    const words = part.trim().split(/[\s,]+/).filter(Boolean)
+    const head = words[0]
+    if (!head) continue
+    const lower = head.toLowerCase()
+    if (lower === 'skip' && words.length === 1) directives.push({ type: 'skip' })
+    else if (lower === 'claim') {
+      const kindWord = words[1]
+      if (words.length > 2) errors.push(`"claim" takes at most one kind, got "${words.slice(1).join(' ')}"`)
+      else if (kindWord === undefined) directives.push({ type: 'claim' })
+      else if ((CLAIM_KINDS as readonly string[]).includes(kindWord)) directives.push({ type: 'claim', kind: kindWord as ClaimKind })
+      else errors.push(`unknown claim kind "${kindWord}" (known: ${CLAIM_KINDS.join(', ')})`)
+    } else if (lower === 'use' || lower === 'set') {
+      const ids: ConventionId[] = []
+      for (const w of words.slice(1)) {
+        if (axisOfConvention(w)) ids.push(w as ConventionId)
+        else errors.push(`unknown convention "${w}"`)
+      }
+      if (words.length === 1) errors.push(`"${lower}" needs at least one convention id`)
+      if (ids.length) directives.push({ type: lower, conventions: ids })
+    } else if (head.startsWith('\\') && words[1]?.toLowerCase() === 'means') {
+      const obj = (words[2] ?? '').toLowerCase().replace(/-/g, '')
+      const macro = head.slice(1)
+      if (!/^[A-Za-z@]+$/.test(macro)) errors.push(`"${head}" is not a macro name`)
+      else if ((NOTATION_OBJECTS as readonly string[]).includes(obj) && words.length === 3) {
+        directives.push({ type: 'means', macro, object: obj as NotationObject })
+      } else errors.push(`"${head} means …" expects one of: ${NOTATION_OBJECTS.join(', ')}`)
+    } else errors.push(`unknown directive "${part.trim()}"`)
+  }
+  return { directives, errors }
+}

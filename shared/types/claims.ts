@@ -1,0 +1,179 @@
+/**
+ * Claims found in a manuscript: the questions the reader hands to the check pipeline.
+ *
+ * Conventions of this module:
+ * - A claim is a question, never an answer: the reader does not compute anything.
+ * - Lines and columns are 1-based and refer to the original file (before macro expansion).
+ * - Integers in expressions are decimal strings, so that no coefficient loses precision in JSON.
+ * - Permutations are `PermutationSpec`s in exactly the shapes the pipeline maps to the engine;
+ *   partitions are `number[]` (weakly decreasing positive parts, `[]` for the empty partition).
+ */
+import type { ConventionId } from './conventions'
+
+/** A permutation as written in the manuscript, e.g. `{ form: 'oneLine', entries: [2, 1, 4, 3] }`. */
+export type PermutationSpec =
+  | { form: 'oneLine'; entries: number[] }
+  | { form: 'cycles'; cycles: number[][] }
+  | { form: 'word'; letters: number[] }
+  | { form: 'longest'; n: number }
+
+/** A partition, largest part first, e.g. `[2, 1]`. */
+export type Partition = number[]
+
+/** Which variables a Schubert-type object is written in: `x` alone, or `x` and `y` (double). */
+export type SchubertVariant = 'single' | 'double'
+
+/** Families of symmetric functions written with a one-letter name. */
+export type SymmetricFamily = 'schur' | 'elementary' | 'complete' | 'monomial' | 'powerSum'
+
+/** Combinatorial objects whose number the manuscript states. */
+export type CountedObject = 'bumplessPipeDreams' | 'pipeDreams' | 'reducedWords'
+
+/**
+ * An expression the pipeline evaluates with the engine.
+ * Example: `x_1^2 - y_1` is
+ * `{ type: 'add', terms: [{ type: 'power', base: {type:'variable',name:'x',index:1}, exponent: 2 }, { type: 'negate', arg: {type:'variable',name:'y',index:1} }] }`.
+ */
+export type Expr =
+  | { type: 'integer'; value: string }
+  | { type: 'variable'; name: 'x' | 'y'; index: number }
+  | { type: 'add'; terms: Expr[] }
+  | { type: 'negate'; arg: Expr }
+  | { type: 'multiply'; factors: Expr[] }
+  | { type: 'power'; base: Expr; exponent: number }
+  /** \mathfrak S_w (single) or \mathfrak S_w(x;y) (double). */
+  | { type: 'schubert'; perm: PermutationSpec; variant: SchubertVariant }
+  /** \mathfrak G_w, single or double. */
+  | { type: 'grothendieck'; perm: PermutationSpec; variant: SchubertVariant }
+  /** Stanley symmetric function F_w. */
+  | { type: 'stanley'; perm: PermutationSpec }
+  /**
+   * s_λ, e_k, h_k, m_λ, p_k. `index` is the partition (for e, h, p a one-part partition [k]).
+   * `variableCount` is n when written in x_1, …, x_n; absent for symmetric functions in infinitely many variables.
+   */
+  | { type: 'symmetric'; family: SymmetricFamily; index: Partition; variableCount?: number }
+  /** Divided difference ∂_i applied to `arg`. */
+  | { type: 'dividedDifference'; index: number; arg: Expr }
+  /** Determinant of a square matrix of expressions, listed row by row. */
+  | { type: 'determinant'; rows: Expr[][] }
+  /** `arg` with every x_i set to 1 (and every y_j to 0 for a double object), e.g. \mathfrak S_w(1,…,1). */
+  | { type: 'evaluateAtOnes'; arg: Expr; variableCount?: number }
+  /** Coxeter length ℓ(w), the number of inversions. */
+  | { type: 'length'; perm: PermutationSpec }
+  /** #BPD(w), #PD(w), #Red(w). */
+  | { type: 'count'; objects: CountedObject; perm: PermutationSpec }
+  /** Schubert structure constant c_{u,v}^w: coefficient of S_w in S_u S_v. */
+  | { type: 'structureConstant'; u: PermutationSpec; v: PermutationSpec; w: PermutationSpec }
+  /** Littlewood–Richardson coefficient c^ν_{λ,μ}: coefficient of s_ν in s_λ s_μ. */
+  | { type: 'littlewoodRichardson'; lambda: Partition; mu: Partition; nu: Partition }
+  /** Kostka number K_{λμ}: number of semistandard tableaux of shape λ and content μ. */
+  | { type: 'kostka'; shape: Partition; content: Partition }
+
+/** The question a claim asks: is `lhs` equal to `rhs`? */
+export interface EqualityQuestion {
+  type: 'equality'
+  lhs: Expr
+  rhs: Expr
+}
+
+export type ClaimQuestion = EqualityQuestion
+
+/** What a claim is about; the main object decides (see shared/latex/classify). */
+export type ClaimKind =
+  | 'schubert'
+  | 'grothendieck'
+  | 'stanley'
+  | 'symmetricFunction'
+  | 'polynomial'
+  | 'dividedDifference'
+  | 'determinant'
+  | 'specialization'
+  | 'length'
+  | 'count'
+  | 'structureConstant'
+  | 'littlewoodRichardson'
+  | 'kostka'
+  | 'unknown'
+
+export const CLAIM_KINDS: readonly ClaimKind[] = [
+  'schubert', 'grothendieck', 'stanley', 'symmetricFunction', 'polynomial', 'dividedDifference',
+  'determinant', 'specialization', 'length', 'count', 'structureConstant', 'littlewoodRichardson',
+  'kostka', 'unknown',
+]
+
+/**
+ * - `ready`: the question is complete and can be checked.
+ * - `skipped`: the author asked not to check it (tag); the question is kept when it could be read.
+ * - `unsupported`: looks like a claim but uses notation the reader cannot turn into a question.
+ * - `error`: the LaTeX around it is malformed (unbalanced braces, runaway macro, unclosed math).
+ */
+export type ClaimStatus = 'ready' | 'skipped' | 'unsupported' | 'error'
+
+/** A value bound by the text ("Let $w = 25143$"). */
+export type ContextValue =
+  | { kind: 'permutation'; perm: PermutationSpec }
+  | { kind: 'partition'; parts: Partition }
+  | { kind: 'integer'; value: number }
+
+export interface Claim {
+  /** `file:line:index`, index counting claims that start on that line from 1; stable within a run. */
+  id: string
+  file: string
+  line: number
+  endLine: number
+  column: number
+  /** LaTeX as written (before macro expansion); for a chain step, `lhs = rhs` of that step. */
+  source: string
+  /** The same after expanding the manuscript's own macros. */
+  expandedSource: string
+  kind: ClaimKind
+  status: ClaimStatus
+  /** Present when the claim could be read (status `ready`, and `skipped` claims that parse). */
+  question?: ClaimQuestion
+  /** Why the claim is not `ready`. */
+  reason?: string
+  /** Conventions set by tags for this claim, one per axis at most. */
+  conventions: ConventionId[]
+  /** \label{...} of the equation or row, for matching claims across revisions. */
+  label?: string
+  /** True for displayed math (equation, align, \[ \], $$), false for inline math. */
+  display: boolean
+  /** Context values (Let $w = …$) this claim used, by symbol. */
+  context?: Record<string, ContextValue>
+  /** True when a tag named the kind or forced the claim. */
+  tagged?: boolean
+}
+
+export type WarningCode =
+  | 'encoding'
+  | 'binary'
+  | 'main-file'
+  | 'missing-file'
+  | 'include-cycle'
+  | 'path-escape'
+  | 'limit'
+  | 'macro'
+  | 'tag'
+  | 'syntax'
+
+/** Something the reader wants the author to know that is not a claim. */
+export interface ReaderWarning {
+  code: WarningCode
+  message: string
+  file?: string
+  line?: number
+}
+
+export interface ReadFileInfo {
+  path: string
+  encoding: 'utf-8' | 'latin-1' | 'binary'
+  lines: number
+  /** main: the root; included: reached by \input/\include/\subfile; unused: in the bundle but never reached. */
+  role: 'main' | 'included' | 'unused'
+}
+
+export interface ReadResult {
+  claims: Claim[]
+  warnings: ReaderWarning[]
+  files: ReadFileInfo[]
+}
