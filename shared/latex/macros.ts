@@ -71,13 +71,16 @@ export class Expander {
     this.frames = []
   }
 
+  /** The last token handed out by `nextRaw` (to find where a macro call ends). */
+  private lastRaw: Token | undefined
+
   nextRaw(): Token | undefined {
     while (this.frames.length) {
       const f = this.frames[this.frames.length - 1]!
-      if (f.i < f.toks.length) return f.toks[f.i++]
+      if (f.i < f.toks.length) return (this.lastRaw = f.toks[f.i++])
       this.frames.pop()
     }
-    return this.tokenizer.next()
+    return (this.lastRaw = this.tokenizer.next())
   }
 
   pushBack(toks: Token[]): void {
@@ -138,6 +141,8 @@ export class Expander {
         args.push(a)
       }
     }
+    const last = this.lastRaw
+    if (last && last !== t && last.depth === t.depth && last.end > end) end = last.end
     const out: Token[] = []
     for (const b of def.body) {
       if (b.k === 'param') {
@@ -204,6 +209,7 @@ export class Expander {
     }
     if (!t || !(t.k === 'ch' && t.v === '[')) {
       if (t) this.pushBack([t])
+      this.lastRaw = undefined // the peeked token is not part of the call
       return undefined
     }
     const out: Token[] = []
