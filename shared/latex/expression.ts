@@ -105,7 +105,7 @@ export class SideParser {
       return { ok: true, expr, meaningful: p.meaningful, used: p.used }
     } catch (e) {
       if (!(e instanceof ParseFail)) throw e
-      return { ok: false, reason: e.message, recognised: p.recognised, used: p.used }
+      return { ok: false, reason: e.message, recognised: p.recognised || mentionsKnownObject(nodes, ctx), used: p.used }
     }
   }
 
@@ -839,4 +839,32 @@ export function bindableSymbol(nodes: MathNode[]): { name: string; family: 'perm
   const base = name.replace(/'$/, '')
   if (PERMUTATION_SYMBOLS.has(base) && base !== 'x' && base !== 'y' && base !== 'z') return { name, family: 'permutation' }
   return undefined
+}
+
+const OBJECT_LETTERS = new Set(['F', 's', 'e', 'h', 'm', 'p', 'c', 'K'])
+
+/** True if the nodes mention an object the reader knows (even where it could not read the whole side). */
+export function mentionsKnownObject(nodes: MathNode[], ctx: ParseContext): boolean {
+  for (let j = 0; j < nodes.length; j++) {
+    const n = nodes[j]!
+    if (n.k === 'group' || n.k === 'env') {
+      if (mentionsKnownObject(n.children, ctx)) return true
+      continue
+    }
+    if (n.k === 'cs') {
+      if (ctx.notation.has(n.v) || n.v === 'ell' || n.v === '#' || n.v === 'partial' || n.v === 'det') return true
+      if (n.v === 'mathfrak') {
+        const arg = nodes[j + 1]
+        const letter = arg ? plainText(childrenOf(arg)).trim() : ''
+        if (letter === 'S' || letter === 'G') return true
+      }
+      continue
+    }
+    if (OBJECT_LETTERS.has(n.v) && isCh(nodes[j + 1], '_')) {
+      const sub = nodes[j + 2]
+      const first = sub ? unwrap(childrenOf(sub))[0] : undefined
+      if (isDigit(first) || isCh(first, '(')) return true
+    }
+  }
+  return false
 }

@@ -483,9 +483,7 @@ export class ReaderRun {
         }
         if (j === 0 && chain && st.parts.length === 1 && (first[0]?.k === 'ch' && (first[0].v === '+' || first[0].v === '-'))) {
           // "& + x_3": a long right-hand side continued on this row. Re-read the last step.
-          const last = chain[chain.length - 1]!
-          last.nodes = [...last.nodes, ...first]
-          this.extendLastClaim(region, last)
+          this.extendLastClaim(region, chain[chain.length - 1]!, first)
           return
         }
         if (this.tryBinding(st)) {
@@ -501,9 +499,11 @@ export class ReaderRun {
   /** Remember the claim made from each step, so that a continued right-hand side can redo it. */
   private lastStep: { lhs: Part; rhs: Part; rel: { node: MathNode }; label?: string; startLine: number; claimIndex: number; continued: boolean } | undefined
 
-  private extendLastClaim(region: Region, last: Part): void {
+  private extendLastClaim(region: Region, last: Part, extra: MathNode[]): void {
     const step = this.lastStep
-    if (!step || step.rhs !== last) return
+    const matches = !!step && step.rhs.nodes === last.nodes
+    last.nodes = [...last.nodes, ...extra]
+    if (!step || !matches) return
     const idx = step.claimIndex
     if (idx < 0 || idx >= this.claims.length) return
     const old = this.claims[idx]!
