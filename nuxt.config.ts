@@ -44,8 +44,4 @@ export default defineNuxtConfig({
     strict: true,
     tsConfig: { exclude: ['../scripts/**', '../tests/**', '../migrations/**', '../bin/**', '../vitest.config.ts', '../eslint.config.mjs'] },
   },
-  nitro: {
-    // The migrations folder is not part of the bundle: scripts/migrate.ts runs them.
-    experimental: { tasks: false },
-  },
 })

@@ -37,7 +37,7 @@ if [ -z "${NUXT_DATABASE_URL:-}" ]; then
 fi
 if [ -z "${NUXT_S3_ENDPOINT:-}" ] || [ -z "${NUXT_SMTP_HOST:-}" ]; then
   export S3_BUCKET="${NUXT_S3_BUCKET:-scholium-sources}"
-  npx tsx scripts/fakes.ts &
+  node --import tsx scripts/fakes.ts &
   PIDS+=($!)
   wait_for_port "$INBOX_PORT" 30 || die "the local S3 and mail fakes did not start"
   export NUXT_S3_ENDPOINT="${NUXT_S3_ENDPOINT:-http://127.0.0.1:$S3_PORT}"
@@ -53,7 +53,7 @@ fi
 export NUXT_PUBLIC_BASE_URL="${NUXT_PUBLIC_BASE_URL:-http://127.0.0.1:$APP_PORT}"
 
 npx tsx scripts/migrate.ts
-ensure_build
+ensure_build || die "the build failed"
 
 log "serving on http://127.0.0.1:$APP_PORT"
 HOST=127.0.0.1 PORT="$APP_PORT" SCHOLIUM_SEED_DEMO=1 node .output/server/index.mjs &

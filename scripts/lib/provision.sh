@@ -90,5 +90,5 @@ ensure_build() {
     return 0
   fi
   log "building the app (nuxt build)"
-  npx nuxt build >"$REPO_ROOT/storage/build.log" 2>&1 || { tail -40 "$REPO_ROOT/storage/build.log" >&2; die "nuxt build failed (storage/build.log)"; }
+  npx nuxt build >"$REPO_ROOT/storage/build.log" 2>&1 || { tail -40 "$REPO_ROOT/storage/build.log" >&2; log "nuxt build failed (storage/build.log)"; return 1; }
 }

@@ -13,14 +13,14 @@ export interface UsersTable {
   display_name: string
   password_hash: string
   site_role: Generated<'member' | 'admin'>
-  created_at: Generated<Timestamp>
+  created_at: Timestamp
 }
 
 export interface SignInFailuresTable {
   id: Generated<string>
   email_key: string
   client_address: string
-  failed_at: Generated<Timestamp>
+  failed_at: Timestamp
 }
 
 export interface VenuesTable {
@@ -28,13 +28,13 @@ export interface VenuesTable {
   slug: string
   name: string
   description: Generated<string>
-  created_at: Generated<Timestamp>
+  created_at: Timestamp
 }
 
 export interface VenueEditorsTable {
   venue_id: string
   user_id: string
-  created_at: Generated<Timestamp>
+  created_at: Timestamp
 }
 
 export interface ManuscriptsTable {
@@ -42,15 +42,15 @@ export interface ManuscriptsTable {
   title: string
   owner_id: string
   conventions: Json<Record<string, string>>
-  created_at: Generated<Timestamp>
-  updated_at: Generated<Timestamp>
+  created_at: Timestamp
+  updated_at: Timestamp
 }
 
 export interface ManuscriptMembersTable {
   manuscript_id: string
   user_id: string
   role: 'author' | 'coauthor'
-  created_at: Generated<Timestamp>
+  created_at: Timestamp
 }
 
 export interface RevisionsTable {
@@ -60,7 +60,7 @@ export interface RevisionsTable {
   main_file: string | null
   note: Generated<string>
   uploaded_by: string
-  created_at: Generated<Timestamp>
+  created_at: Timestamp
 }
 
 export interface RevisionFilesTable {
@@ -71,7 +71,7 @@ export interface RevisionFilesTable {
   sha256: string
   size_bytes: number
   uploaded_by: string
-  uploaded_at: Generated<Timestamp>
+  uploaded_at: Timestamp
 }
 
 export type CheckRunStatus = 'queued' | 'running' | 'finished' | 'failed' | 'cancelled'
@@ -89,7 +89,7 @@ export interface CheckRunsTable {
   error: string | null
   attempts: Generated<number>
   requested_by: string | null
-  queued_at: Generated<Timestamp>
+  queued_at: Timestamp
   started_at: Timestamp | null
   finished_at: Timestamp | null
 }
@@ -118,8 +118,8 @@ export interface SubmissionsTable {
   venue_id: string
   submitted_by: string
   status: Generated<'submitted' | 'in-review' | 'decided' | 'withdrawn'>
-  created_at: Generated<Timestamp>
-  updated_at: Generated<Timestamp>
+  created_at: Timestamp
+  updated_at: Timestamp
 }
 
 export interface RefereeAssignmentsTable {
@@ -130,7 +130,7 @@ export interface RefereeAssignmentsTable {
   status: Generated<'active' | 'completed' | 'withdrawn'>
   overall_note: Generated<string>
   released_at: Timestamp | null
-  created_at: Generated<Timestamp>
+  created_at: Timestamp
 }
 
 export interface ClaimCommentsTable {
@@ -142,7 +142,7 @@ export interface ClaimCommentsTable {
   author_id: string
   referee_assignment_id: string | null
   body: string
-  created_at: Generated<Timestamp>
+  created_at: Timestamp
 }
 
 export interface ConventionDecisionsTable {
@@ -153,7 +153,7 @@ export interface ConventionDecisionsTable {
   proposed_by: string
   status: Generated<'proposed' | 'accepted' | 'withdrawn'>
   agreed_by: Json<string[]>
-  created_at: Generated<Timestamp>
+  created_at: Timestamp
   decided_at: Timestamp | null
 }
 
@@ -167,12 +167,12 @@ export interface InvitationsTable {
   invited_by: string | null
   expires_at: Timestamp
   used_at: Timestamp | null
-  created_at: Generated<Timestamp>
+  created_at: Timestamp
 }
 
 export interface AuditLogTable {
   id: Generated<string>
-  at: Generated<Timestamp>
+  at: Timestamp
   actor_id: string | null
   action: string
   subject_type: string

@@ -4,7 +4,7 @@ import { insertRevisionWithFiles, isStorageKeyReferenced, type StoredFile } from
 import { insertCheckRun } from '../repositories/check-runs'
 import { touchManuscript } from '../repositories/manuscripts'
 import { appendAudit } from '../repositories/audit'
-import { readUploadedFiles, UploadRefusedError, type BundleFile } from '../utils/upload-bundle'
+import { readUploadedFiles, UPLOAD_LIMITS, UploadRefusedError, type BundleFile, type UploadRefusalCode } from '../utils/upload-bundle'
 
 export interface UploadedPart { filename: string, data: Buffer }
 
@@ -62,9 +62,31 @@ async function readOrRefuse(parts: UploadedPart[]): Promise<BundleFile[]> {
     return await readUploadedFiles(parts)
   }
   catch (error) {
-    if (error instanceof UploadRefusedError) fail(422, `upload-${error.code}` as ApiErrorCode, error.message)
+    if (error instanceof UploadRefusedError) {
+      // The message is ours alone; the (escaped) entry name travels separately, never inside it.
+      fail(422, `upload-${error.code}` as ApiErrorCode, REFUSAL_MESSAGES[error.code], error.entry ? { entry: error.entry } : {})
+    }
     throw error
   }
+}
+
+const MB = (bytes: number) => `${Math.round(bytes / 1024 / 1024)} MB`
+const REFUSAL_MESSAGES: Record<UploadRefusalCode, string> = {
+  'empty': 'The upload contains no files',
+  'too-large': `The upload is too large: at most ${MB(UPLOAD_LIMITS.maxTotalBytes)} unpacked, ${MB(UPLOAD_LIMITS.maxFileBytes)} per file`,
+  'too-many-files': `The upload has too many files: at most ${UPLOAD_LIMITS.maxFiles}`,
+  'file-type': `A file is not part of a LaTeX source; accepted: ${[...UPLOAD_LIMITS.allowedExtensions].join(' ')}`,
+  'path-unsafe': 'A file path is unsafe (absolute, leaving the bundle, or with control characters)',
+  'path-too-long': `A file path is too long or too deeply nested (at most ${UPLOAD_LIMITS.maxPathDepth} folders)`,
+  'link-entry': 'The archive contains a link; upload the files themselves',
+  'special-entry': 'The archive contains a device or other special entry',
+  'compression-ratio': `The archive unpacks to more than ${UPLOAD_LIMITS.maxCompressionRatio} times its size`,
+  'archive-corrupt': 'The archive cannot be read to the end; it may be damaged',
+  'archive-unsupported': 'The archive uses encryption or a compression method Scholium does not read',
+  'nested-archive': 'The archive contains another archive; unpack it first',
+  'mixed-upload': 'Send either one archive or plain files, not both',
+  'duplicate-path': 'Two files in the upload have the same path',
+  'no-tex': 'The upload contains no .tex file',
 }
 
 /** The file with \documentclass, else the only .tex file; the reader may still be told otherwise. */

@@ -1,4 +1,4 @@
-import { createError } from 'h3'
+import { createError, getValidatedRouterParams, readValidatedBody, type H3Event } from 'h3'
 import type { ZodError, ZodType } from 'zod'
 import type { ApiErrorCode, ApiErrorData } from '#shared/types/api'
 
@@ -6,18 +6,27 @@ import type { ApiErrorCode, ApiErrorData } from '#shared/types/api'
  * Throws an HTTP error with a short message and a machine-readable code.
  * Messages never echo user input. Example: `fail(404, 'not-found', 'No such manuscript')`
  */
-export function fail(statusCode: number, code: ApiErrorCode, message: string, fields?: Record<string, string>): never {
-  const data: ApiErrorData = fields ? { code, fields } : { code }
+export function fail(statusCode: number, code: ApiErrorCode, message: string, extra: Omit<ApiErrorData, 'code'> = {}): never {
+  const data: ApiErrorData = { code, ...extra }
   throw createError({ statusCode, statusMessage: message, message, data })
 }
 
-/** A validator for h3's readValidatedBody & co. that fails with invalid-input and per-field reasons. */
-export function validateWith<T>(schema: ZodType<T>) {
-  return (input: unknown): T => {
-    const parsed = schema.safeParse(input)
-    if (parsed.success) return parsed.data
-    fail(400, 'invalid-input', 'The request is not valid', fieldErrors(parsed.error))
-  }
+/**
+ * Reads and validates a JSON body; failure is 400 invalid-input with a reason per field.
+ * Example: `const { title } = await readBodyAs(event, z.object({ title: z.string() }))`
+ */
+export async function readBodyAs<T>(event: H3Event, schema: ZodType<T>): Promise<T> {
+  return orInvalid(await readValidatedBody(event, body => schema.safeParse(body ?? {})))
+}
+
+/** Validates route parameters the same way. */
+export async function routeParamsAs<T>(event: H3Event, schema: ZodType<T>): Promise<T> {
+  return orInvalid(await getValidatedRouterParams(event, params => schema.safeParse(params)))
+}
+
+function orInvalid<T>(parsed: { success: true, data: T } | { success: false, error: ZodError }): T {
+  if (parsed.success) return parsed.data
+  fail(400, 'invalid-input', 'The request is not valid', { fields: fieldErrors(parsed.error) })
 }
 
 function fieldErrors(error: ZodError): Record<string, string> {

@@ -15,6 +15,10 @@ export type ApiErrorCode =
   | 'upload-too-many-files'
   | 'upload-file-type'
   | 'upload-path-unsafe'
+  | 'upload-path-too-long'
+  | 'upload-special-entry'
+  | 'upload-archive-unsupported'
+  | 'upload-mixed-upload'
   | 'upload-link-entry'
   | 'upload-compression-ratio'
   | 'upload-archive-corrupt'
@@ -30,6 +34,8 @@ export interface ApiErrorData {
   code: ApiErrorCode
   /** For invalid-input: which fields failed and why. */
   fields?: Record<string, string>
+  /** For refused uploads: the offending entry's name, escaped to printable ASCII. */
+  entry?: string
 }
 
 export type SiteRole = 'member' | 'admin'

@@ -2,6 +2,7 @@
 import type { SessionUser } from './api'
 
 declare module '#auth-utils' {
+  // eslint-disable-next-line @typescript-eslint/no-empty-object-type -- the module augments by declaration merging
   interface User extends SessionUser {}
 }
 

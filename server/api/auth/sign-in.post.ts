@@ -7,7 +7,7 @@ const SignIn = z.object({
 })
 
 export default defineEventHandler(async (event) => {
-  const body = await readValidatedBody(event, validateWith(SignIn))
+  const body = await readBodyAs(event, SignIn)
   const clientAddress = getRequestIP(event, { xForwardedFor: false }) ?? 'unknown'
   const user = await signIn(useDb(), { ...body, clientAddress })
   await setUserSession(event, { user, loggedInAt: Date.now() })

@@ -8,7 +8,7 @@ const SignUp = z.object({
 })
 
 export default defineEventHandler(async (event) => {
-  const body = await readValidatedBody(event, validateWith(SignUp))
+  const body = await readBodyAs(event, SignUp)
   const user = await signUp(useDb(), body)
   await setUserSession(event, { user, loggedInAt: Date.now() })
   setResponseStatus(event, 201)

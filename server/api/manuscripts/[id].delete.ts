@@ -5,7 +5,7 @@ import { appendAudit } from '../../repositories/audit'
 const Params = z.object({ id: z.string() })
 
 export default defineEventHandler(async (event) => {
-  const { id } = await getValidatedRouterParams(event, validateWith(Params))
+  const { id } = await routeParamsAs(event, Params)
   const grant = await authorize(event, { manuscript: id, owner: true })
   const db = useDb()
   await db.transaction().execute(async (trx) => {

@@ -6,7 +6,7 @@ const NewManuscript = z.object({ title: z.string().trim().min(1, 'Give the manus
 
 export default defineEventHandler(async (event) => {
   const { user } = await authorize(event, { signedIn: true })
-  const { title } = await readValidatedBody(event, validateWith(NewManuscript))
+  const { title } = await readBodyAs(event, NewManuscript)
   const db = useDb()
   const manuscript = await db.transaction().execute(async (trx) => {
     const created = await insertManuscript(trx, { title, ownerId: user.id })

@@ -6,7 +6,7 @@ const Params = z.object({ id: z.string() })
 
 /** A referee's view of one assigned submission: the submitted revision and its latest run. */
 export default defineEventHandler(async (event): Promise<ReviewView> => {
-  const { id } = await getValidatedRouterParams(event, validateWith(Params))
+  const { id } = await routeParamsAs(event, Params)
   const grant = await authorize(event, { refereeAssignment: id })
   const [revision] = await revisionViews(useDb(), grant.manuscriptId, grant.revisionId)
   if (!revision) fail(404, 'not-found', 'No such review')

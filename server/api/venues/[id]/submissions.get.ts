@@ -8,7 +8,7 @@ const Params = z.object({ id: z.string() })
 
 /** A venue's submissions, for its editors only (referee identities included: editors appoint them). */
 export default defineEventHandler(async (event) => {
-  const { id } = await getValidatedRouterParams(event, validateWith(Params))
+  const { id } = await routeParamsAs(event, Params)
   await authorize(event, { venueEditor: id })
   const db = useDb()
   const venue = await findVenue(db, id)

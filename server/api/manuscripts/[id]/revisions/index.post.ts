@@ -6,7 +6,7 @@ const Params = z.object({ id: z.string() })
 const MAX_REQUEST_BYTES = 60 * 1024 * 1024
 
 export default defineEventHandler(async (event) => {
-  const { id } = await getValidatedRouterParams(event, validateWith(Params))
+  const { id } = await routeParamsAs(event, Params)
   const grant = await authorize(event, { manuscript: id })
   const length = Number(getRequestHeader(event, 'content-length') ?? '0')
   if (length > MAX_REQUEST_BYTES) fail(413, 'upload-too-large', 'The upload is larger than 60 MB')

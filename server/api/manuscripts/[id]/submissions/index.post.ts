@@ -8,9 +8,9 @@ const Params = z.object({ id: z.string() })
 const Body = z.object({ revisionId: z.string().uuid('Choose a revision'), venueId: z.string().uuid('Choose a venue') })
 
 export default defineEventHandler(async (event) => {
-  const { id } = await getValidatedRouterParams(event, validateWith(Params))
+  const { id } = await routeParamsAs(event, Params)
   const grant = await authorize(event, { manuscript: id })
-  const body = await readValidatedBody(event, validateWith(Body))
+  const body = await readBodyAs(event, Body)
   const db = useDb()
   const revision = await findRevision(db, body.revisionId)
   if (!revision || revision.manuscript_id !== id) fail(404, 'not-found', 'No such revision')
