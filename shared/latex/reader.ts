@@ -469,6 +469,8 @@ export class ReaderRun {
     const regionLabel = region.env && SINGLE_EQUATION_ENVS.has(region.env) ? rows.find(r => r.label)?.label : undefined
     const startLine = positionAt(region.file.starts, region.pos).line
     let chain: Part[] | undefined
+    /** Kind of the chain's latest claim: later steps of a chain are checked even without objects of their own. */
+    let chainKind: ClaimKind | undefined
     for (const row of rows) {
       const statements = splitStatements(row.nodes)
       statements.forEach((st, j) => {
@@ -476,8 +478,8 @@ export class ReaderRun {
         if (j === 0 && chain && first.length === 0 && st.parts.length > 1) {
           // "&= C" continues the previous row: C is checked against its last expression.
           const lhs = chain[chain.length - 1]!
-          this.emitStep(region, lhs, st.parts[1]!, st.relations[0]!, row.label ?? regionLabel, startLine, true)
-          this.emitChain(region, st, 1, row.label ?? regionLabel, startLine)
+          chainKind = this.emitStep(region, lhs, st.parts[1]!, st.relations[0]!, row.label ?? regionLabel, startLine, true, undefined, chainKind)
+          chainKind = this.emitChain(region, st, 1, row.label ?? regionLabel, startLine, chainKind)
           chain = [{ nodes: st.parts[st.parts.length - 1]! }]
           return
         }
@@ -490,7 +492,7 @@ export class ReaderRun {
           chain = undefined
           return
         }
-        this.emitChain(region, st, 0, row.label ?? regionLabel, startLine)
+        chainKind = this.emitChain(region, st, 0, row.label ?? regionLabel, startLine, undefined)
         chain = [{ nodes: st.parts[st.parts.length - 1]! }]
       })
     }
@@ -513,12 +515,17 @@ export class ReaderRun {
     this.emitStep(region, step.lhs, last.nodes, { ...step.rel, rel: '=', name: '=' }, step.label, step.startLine, step.continued, last)
   }
 
-  private emitChain(region: Region, st: ReturnType<typeof splitStatements>[number], from: number, label: string | undefined, startLine: number): void {
+  private emitChain(
+    region: Region, st: ReturnType<typeof splitStatements>[number], from: number, label: string | undefined,
+    startLine: number, chainKind: ClaimKind | undefined,
+  ): ClaimKind | undefined {
+    let kind = chainKind
     for (let k = from; k + 1 < st.parts.length; k++) {
       if (st.parts[k]!.length === 0) continue
-      this.emitStep(region, { nodes: st.parts[k]! }, st.parts[k + 1]!, st.relations[k]!, label, startLine, false)
+      kind = this.emitStep(region, { nodes: st.parts[k]! }, st.parts[k + 1]!, st.relations[k]!, label, startLine, false, undefined, kind)
     }
     if (st.parts.length === 1) this.emitLone(region, st.parts[0]!, label, startLine)
+    return kind
   }
 
   /** Math without a relation is a claim only when a tag says so. */
@@ -573,14 +580,14 @@ export class ReaderRun {
 
   private emitStep(
     region: Region, lhs: Part, rhsNodes: MathNode[], rel: { rel: string; node: MathNode; name: string },
-    label: string | undefined, startLine: number, continued: boolean, rhsPart?: Part,
-  ): void {
-    if (rel.rel !== '=') return
+    label: string | undefined, startLine: number, continued: boolean, rhsPart?: Part, chainKind?: ClaimKind,
+  ): ClaimKind | undefined {
+    if (rel.rel !== '=') return undefined
     const file = region.file
     const rhs = rhsPart ?? { nodes: rhsNodes }
     const lspan = spanOf(lhs.nodes)
     const rspan = spanOf(rhs.nodes)
-    if (!lspan || !rspan) return
+    if (!lspan || !rspan) return undefined
     const anchor = continued ? rel.node.pos : lspan.pos
     const at = positionAt(file.starts, anchor)
     const endLine = positionAt(file.starts, Math.max(rspan.end - 1, anchor)).line
@@ -588,15 +595,17 @@ export class ReaderRun {
     const ctx = { bindings: this.bindings, notation: this.notation }
     const l = SideParser.parseSide(lhs.nodes, ctx)
     const r = SideParser.parseSide(rhs.nodes, ctx)
-    const decision = decide(l, r)
+    let decision = decide(l, r)
+    if (decision.type === 'silent' && chainKind && l.ok && r.ok) decision = { type: 'claim' }
     const claimTag = tags.find(d => d.type === 'claim') as { type: 'claim'; kind?: ClaimKind } | undefined
     const skip = tags.some(d => d.type === 'skip')
     if (decision.type === 'silent' && !claimTag) {
       this.lastStep = undefined
-      return
+      return undefined
     }
     const context: Record<string, ContextValue> = {}
     for (const [k, v] of [...l.used, ...r.used]) context[k] = v
+    let kind: ClaimKind
     const base = {
       file: file.path, line: at.line, endLine: Math.max(endLine, at.line), column: at.column,
       source: `${sliceTrim(file.original, lspan)} = ${sliceTrim(file.original, rspan)}`,
@@ -607,16 +616,21 @@ export class ReaderRun {
       ...(claimTag ? { tagged: true } : {}),
     }
     if (decision.type === 'claim' && l.ok && r.ok) {
-      const kind = claimTag?.kind ?? classifyClaim(l.expr, r.expr)
+      const own = classifyClaim(l.expr, r.expr)
+      // A step of plain numbers ("= 1 + 2") in a chain about ℓ(w) is still about ℓ(w).
+      const numbersOnly = own === 'polynomial' && !exprTypes(l.expr).has('variable') && !exprTypes(r.expr).has('variable')
+      kind = claimTag?.kind ?? (numbersOnly && chainKind ? chainKind : own)
       this.pushClaim({
         ...base, kind, status: skip ? 'skipped' : 'ready', question: { type: 'equality', lhs: l.expr, rhs: r.expr },
         ...(skip ? { reason: 'a tag asks to skip this claim' } : {}),
       })
     } else {
+      kind = claimTag?.kind ?? guessKind(l, r)
       const reason = decision.type === 'unsupported' ? decision.reason : decision.type === 'silent' ? `tagged as a claim, but ${decision.reason}` : 'unreadable'
-      this.pushClaim({ ...base, kind: claimTag?.kind ?? guessKind(l, r), status: skip ? 'skipped' : 'unsupported', reason })
+      this.pushClaim({ ...base, kind, status: skip ? 'skipped' : 'unsupported', reason })
     }
     this.lastStep = { lhs, rhs, rel, label, startLine, claimIndex: this.claims.length - 1, continued }
+    return kind
   }
 }
 
