@@ -582,7 +582,6 @@ export class ReaderRun {
     region: Region, lhs: Part, rhsNodes: MathNode[], rel: { rel: string; node: MathNode; name: string },
     label: string | undefined, startLine: number, continued: boolean, rhsPart?: Part, chainKind?: ClaimKind,
   ): ClaimKind | undefined {
-    if (rel.rel !== '=') return undefined
     const file = region.file
     const rhs = rhsPart ?? { nodes: rhsNodes }
     const lspan = spanOf(lhs.nodes)
@@ -599,6 +598,8 @@ export class ReaderRun {
     if (decision.type === 'silent' && chainKind && l.ok && r.ok) decision = { type: 'claim' }
     const claimTag = tags.find(d => d.type === 'claim') as { type: 'claim'; kind?: ClaimKind } | undefined
     const skip = tags.some(d => d.type === 'skip')
+    if (rel.rel !== '=' && !claimTag) return undefined
+    if (rel.rel !== '=') decision = { type: 'unsupported', reason: `the relation ${rel.name} is not checked; only equalities are` }
     if (decision.type === 'silent' && !claimTag) {
       this.lastStep = undefined
       return undefined
