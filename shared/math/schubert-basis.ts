@@ -16,7 +16,7 @@
  */
 import { Permutation } from './permutation'
 import { Polynomial, accumulate, decodeMonomial } from './polynomial'
-import { packedSchubert, schubertPolynomial } from './schubert'
+import { packedSchubert, schubertPolynomial, transitionStep } from './schubert'
 import { NotInSpanError } from './errors'
 import { addChecked, mulChecked } from './coefficient'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
@@ -147,15 +147,27 @@ function swapKey(key: string, a: number, b: number): string {
   return k.slice(0, a - 1) + k[b - 1] + k.slice(a, b - 1) + k[a - 1] + k.slice(b)
 }
 
-/** S_u · S_v in the Schubert basis; e.g. S_{s_1}·S_{s_1} = S_{s_2 s_1}… = {"3,1,2": 1, "2,3,1": 1}. */
-export function schubertProduct(u: Permutation, v: Permutation, budget?: Budget | BudgetMeter): SchubertCombination {
+/**
+ * S_u · S_v in the Schubert basis; e.g. S_{21}·S_{21} = S_{312} + S_{231}.
+ * Default method 'transition' (transition recursion on the factor with the smaller recursion,
+ * see schubertProductByTransition); 'horner' expands one factor into monomials instead.
+ */
+export function schubertProduct(u: Permutation, v: Permutation, budget?: Budget | BudgetMeter, method: 'transition' | 'horner' = 'transition'): SchubertCombination {
+  if (method === 'transition') {
+    return transitionDagSize(u) <= transitionDagSize(v) ? schubertProductByTransition(u, v, budget) : schubertProductByTransition(v, u, budget)
+  }
+  return schubertProductByHorner(u, v, budget)
+}
+
+/** S_u · S_v by expanding the factor with fewer terms and evaluating it in Horner form on Schubert combinations. */
+export function schubertProductByHorner(u: Permutation, v: Permutation, budget?: Budget | BudgetMeter): SchubertCombination {
   const meter = toMeter(budget)
-  // Expand the factor with fewer terms (cheap proxy: fewer reduced pipe dreams ~ smaller length, then size).
-  const [poly, other] = pickPolynomialSide(u, v, meter)
+  const [monos, other] = pickPolynomialSide(u, v, meter)
   const start = new Map<string, number>([[toInternal(other), 1]])
-  // monomials as exponent vectors with coefficients
-  const monos = poly
-  const result = horner(monos, 1, start, meter)
+  const order: number[] = []
+  const maxVar = monos.reduce((m, t) => Math.max(m, t.e.length), 0)
+  for (let i = 1; i <= maxVar; i++) order.push(i)
+  const result = horner(monos, order, 0, start, meter)
   const out: SchubertCombination = new Map()
   for (const [k, c] of result) out.set(fromInternal(k), c)
   return out
@@ -173,17 +185,15 @@ function pickPolynomialSide(u: Permutation, v: Permutation, meter: BudgetMeter):
 }
 
 /** Σ_m c_m x^{e_m} restricted to variables ≥ i, times the combination `base`, in Horner form over x_i. */
-function horner(monos: Mono[], i: number, base: Map<string, number>, meter: BudgetMeter): Map<string, number> {
-  // Base case: no variable ≥ i occurs.
-  let maxVar = 0
-  for (const m of monos) for (let k = m.e.length - 1; k >= i - 1; k--) if (m.e[k]! > 0) { maxVar = Math.max(maxVar, k + 1); break }
-  if (maxVar === 0) {
+function horner(monos: Mono[], order: readonly number[], depth: number, base: Map<string, number>, meter: BudgetMeter): Map<string, number> {
+  if (depth === order.length) {
     let total = 0
     for (const m of monos) total = addChecked(total, m.c)
     const out = new Map<string, number>()
     if (total !== 0) for (const [k, c] of base) out.set(k, mulChecked(c, total))
     return out
   }
+  const i = order[depth]!
   // Group by the exponent of x_i.
   const groups = new Map<number, Mono[]>()
   let top = 0
@@ -199,7 +209,7 @@ function horner(monos: Mono[], i: number, base: Map<string, number>, meter: Budg
     if (a < top) acc = multiplyByVariable(i, acc, meter)
     const g = groups.get(a)
     if (g) {
-      const part = horner(g, i + 1, base, meter)
+      const part = horner(g, order, depth + 1, base, meter)
       for (const [k, c] of part) addTo(acc, k, c)
     }
   }
@@ -230,4 +240,48 @@ export function structureConstant(u: Permutation, v: Permutation, w: Permutation
 export function schubertProductByExpansion(u: Permutation, v: Permutation, budget?: Budget | BudgetMeter): SchubertCombination {
   const meter = toMeter(budget)
   return schubertExpansion(schubertPolynomial(u, meter).mul(schubertPolynomial(v, meter), meter), { budget: meter })
+}
+
+/** S_u · S_v by the transition recursion on u (memoised), multiplying by x_r with the Monk-derived rule. */
+export function schubertProductByTransition(u: Permutation, v: Permutation, budget?: Budget | BudgetMeter): SchubertCombination {
+  const meter = toMeter(budget)
+  const memo = new Map<string, Map<string, number>>()
+  const base = new Map<string, number>([[toInternal(v), 1]])
+  const go = (line: number[]): Map<string, number> => {
+    let n = line.length
+    while (n > 0 && line[n - 1] === n) n--
+    const key = line.slice(0, n).join(',')
+    const hit = memo.get(key)
+    if (hit) return hit
+    const step = transitionStep(line.slice(0, n))
+    let result: Map<string, number>
+    if (!step) result = base
+    else {
+      result = multiplyByVariable(step.r, go(step.v), meter)
+      for (const o of step.others) for (const [k, c] of go(o)) addTo(result, k, c)
+    }
+    meter.step()
+    memo.set(key, result)
+    return result
+  }
+  const out: SchubertCombination = new Map()
+  for (const [k, c] of go(u.oneLine.slice())) out.set(fromInternal(k), c)
+  return out
+}
+
+/** Number of distinct nodes of the transition recursion from w (a cheap cost estimate). */
+export function transitionDagSize(w: Permutation, limit = 1e6): number {
+  const seen = new Set<string>()
+  const stack = [w.oneLine.slice()]
+  while (stack.length > 0 && seen.size < limit) {
+    const line = stack.pop()!
+    let n = line.length
+    while (n > 0 && line[n - 1] === n) n--
+    const key = line.slice(0, n).join(',')
+    if (seen.has(key)) continue
+    seen.add(key)
+    const step = transitionStep(line.slice(0, n))
+    if (step) { stack.push(step.v); for (const o of step.others) stack.push(o) }
+  }
+  return seen.size
 }

@@ -1,7 +1,7 @@
 import { describe, it, expect } from 'vitest'
 import {
   Permutation, Polynomial, parsePermutation, allPermutations, schubertPolynomial, schubertExpansion,
-  schubertProduct, schubertProductByExpansion, combinationsEqual, combinationToPolynomial, monkProduct,
+  schubertProduct, schubertProductByExpansion, schubertProductByHorner, schubertProductByTransition, combinationsEqual, combinationToPolynomial, monkProduct,
   structureConstant, NotInSpanError, NotSymmetricError, BudgetExceededError,
   schurPolynomial, elementarySymmetric, completeSymmetric, powerSum, monomialSymmetric, schurExpansion,
   schurProduct, omega, conjugate, schurCombinationToPolynomial, multiplySchurCombinations, partitionsOf,
@@ -48,14 +48,17 @@ describe('Schubert basis', () => {
       expect((e as NotInSpanError).code).toBe('NOT_IN_SPAN')
     }
   })
-  it('structure constants: Horner–Monk product = expansion of the product polynomial (seeded, S_4 to S_6)', () => {
+  it('structure constants: transition and Horner–Monk products = expansion of the product polynomial (seeded, S_4 to S_6)', () => {
     const rand = seeded(31)
     for (let t = 0; t < 25; t++) {
       const n = randomInt(rand, 4, 6)
       const u = randomPermutation(rand, n)
       const v = randomPermutation(rand, n)
       if (u.length() + v.length() > 12) continue
-      expect(combinationsEqual(schubertProduct(u, v), schubertProductByExpansion(u, v))).toBe(true)
+      const expected = schubertProductByExpansion(u, v)
+      expect(combinationsEqual(schubertProduct(u, v), expected)).toBe(true)
+      expect(combinationsEqual(schubertProductByHorner(u, v), expected)).toBe(true)
+      expect(combinationsEqual(schubertProductByTransition(v, u), expected)).toBe(true)
     }
   })
   it('Monk rule agrees with the product for every w in S_5 and r ≤ 5', () => {
@@ -69,7 +72,10 @@ describe('Schubert basis', () => {
       expect(v).toBeGreaterThan(0)
       expect(Permutation.fromOneLine(k.split(',').map(Number)).length()).toBe(5)
     }
-    expect(structureConstant(P('132'), P('132'), P('1423') // S_132^2 = S_231 + S_1423 by Monk's rule, worked by hand)).toBe(1)
+    // S_132^2 = S_231 + S_1423 by Monk's rule, worked by hand
+    expect(structureConstant(P('132'), P('132'), P('1423'))).toBe(1)
+    expect(structureConstant(P('132'), P('132'), P('231'))).toBe(1)
+    expect(structureConstant(P('132'), P('132'), P('312'))).toBe(0)
   })
   it('products honour their budget', () => {
     expect(() => schubertProduct(P('1563742'), P('2714365'), { maxTerms: 5 })).toThrow(BudgetExceededError)
