@@ -6,7 +6,7 @@
  * token; passing `limits.maxExpansionDepth` or the output budget raises `ExpansionError`, so a
  * self-referential macro ends with a clear message instead of a hang.
  */
-import { Tokenizer, type Token } from './tokens'
+import { Tokenizer, splitRuns, type Token } from './tokens'
 
 /** One item of a \def parameter text: a parameter number or a literal delimiter token. */
 type PatternItem = { param: number } | { literal: Token }
@@ -81,6 +81,15 @@ export class Expander {
       this.frames.pop()
     }
     return (this.lastRaw = this.tokenizer.next())
+  }
+
+  /** Like nextRaw, but a run of characters yields its first character only (for \def delimiters). */
+  nextRawChar(): Token | undefined {
+    const t = this.nextRaw()
+    if (!t || t.k !== 'ch' || t.v.length <= 1 || t.v === '$$') return t
+    const [first, ...rest] = splitRuns([t])
+    this.pushBack(rest)
+    return first
   }
 
   pushBack(toks: Token[]): void {
@@ -233,7 +242,7 @@ export class Expander {
     while (i < pattern.length) {
       const item = pattern[i]!
       if ('literal' in item) {
-        const u = this.nextRaw()
+        const u = this.nextRawChar()
         if (!u || u.k !== item.literal.k || u.v !== item.literal.v) {
           throw new ExpansionError(`use of \\${def.name} does not match its definition`, t.pos)
         }
@@ -252,7 +261,7 @@ export class Expander {
       const got: Token[] = []
       let depth = 0
       for (;;) {
-        const u = this.nextRaw()
+        const u = this.nextRawChar()
         if (!u) throw new ExpansionError(`use of \\${def.name} does not match its definition (delimiter never found)`, t.pos)
         if (u.k === 'ch' && u.v === '{') depth++
         if (u.k === 'ch' && u.v === '}') depth--
@@ -387,7 +396,7 @@ export function readDefinition(
       if (!t) throw new ExpansionError(`\\${name}\\${target.v} has no replacement text`, cmd.pos)
       if (t.k === 'ch' && t.v === '{') {
         const body = toReplacementText(x.readGroupBody(t, cmd))
-        const pattern = toReplacementText(paramText)
+        const pattern = toReplacementText(splitRuns(paramText))
         const items: PatternItem[] = pattern.map(u => (u.k === 'param' ? { param: Number(u.v) } : { literal: u }))
         const params = items.filter(it => 'param' in it).length
         const delimited = items.some(it => 'literal' in it && it.literal.k !== 'sp')

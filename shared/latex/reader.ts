@@ -609,7 +609,10 @@ export class ReaderRun {
     let kind: ClaimKind
     const base = {
       file: file.path, line: at.line, endLine: Math.max(endLine, at.line), column: at.column,
-      source: `${sliceTrim(file.original, lspan)} = ${sliceTrim(file.original, rspan)}`,
+      // Sides that overlap come from one macro call: its text is the claim as written.
+      source: rspan.pos < lspan.end && lspan.pos < rspan.end
+        ? sliceTrim(file.original, { pos: Math.min(lspan.pos, rspan.pos), end: Math.max(lspan.end, rspan.end) })
+        : `${sliceTrim(file.original, lspan)} = ${sliceTrim(file.original, rspan)}`,
       expandedSource: `${renderNodes(lhs.nodes)} = ${renderNodes(rhs.nodes)}`,
       conventions: this.activeConventions(useIds(tags)), display: region.display,
       ...(label ? { label } : {}),
