@@ -276,8 +276,9 @@ export class Expander {
       }
       const first = got[0]
       const last = got[got.length - 1]
-      if (first && last && first.v === '{' && last.v === '}' && isSingleGroup(got)) got.splice(0, 1), got.pop()
-      args[item.param - 1] = got
+      // TeX strips one pair of braces around a whole delimited argument.
+      const stripped = first && last && first.v === '{' && last.v === '}' && isSingleGroup(got) ? got.slice(1, -1) : got
+      args[item.param - 1] = stripped
       i = j
     }
   }
