@@ -11,6 +11,7 @@ import { ReaderRun } from './reader'
 import { normalizeBundlePath } from './paths'
 
 export type { ReaderLimits } from './limits'
+export type { Claim, ClaimKind, ClaimStatus, Expr, PermutationSpec, ReadResult, ReaderWarning } from '../types/claims'
 export { DEFAULT_LIMITS } from './limits'
 export { parseTag, isTagComment } from './tags'
 export type { TagDirective, NotationObject } from './tags'
