@@ -1,0 +1,139 @@
+/**
+ * Checks one claim under every combination of the conventions that matter to it,
+ * so the run can tell "wrong" from "right under another convention" and infer
+ * which conventions the paper follows.
+ */
+import type { Claim, Expr, PermutationSpec } from '../types/claims'
+import { CONVENTION_AXES, REFERENCE_CONVENTIONS, axisOfConvention, type ConventionAxis, type ConventionId, type ConventionSet } from '../types/conventions'
+import type { ClaimDiff } from '../types/report'
+import { BudgetMeter, MathError, type Budget } from '../math'
+import { compareSides } from './compare'
+import { permutationOf, type EngineMemo } from './evaluate'
+import { UnsupportedClaimError } from './values'
+
+export interface VariantResult {
+  conventions: ConventionSet
+  holds: boolean
+  computed: string | null
+  diff: ClaimDiff | null
+}
+
+export type ClaimEvaluation =
+  | { status: 'evaluated', axes: ConventionAxis[], fixed: Partial<ConventionSet>, variants: VariantResult[], permutations: number[][] }
+  | { status: 'unsupported' | 'error' | 'skipped', message: string, permutations: number[][] }
+
+/** Budget for one claim; the run's AbortSignal stops it from outside. */
+export const CLAIM_BUDGET: Required<Omit<Budget, 'signal'>> = { maxTerms: 400_000, maxSteps: 40_000_000 }
+
+/**
+ * Evaluates `claim` under each combination of its free convention axes.
+ * `fixed` holds choices set outside the claim (manuscript setting, command line);
+ * a tag on the claim overrides them.
+ */
+export function evaluateClaim(claim: Claim, options: { fixed?: Partial<ConventionSet>, memo?: EngineMemo, budget?: Budget } = {}): ClaimEvaluation {
+  const permutations = claim.question ? permutationsIn(claim.question.lhs, claim.question.rhs) : []
+  if (claim.status === 'skipped') return { status: 'skipped', message: 'skipped at the author\'s request (a scholium: skip tag)', permutations }
+  if (claim.status !== 'ready' || !claim.question) {
+    return { status: claim.status === 'error' ? 'error' : 'unsupported', message: claim.reason ?? 'the claim could not be read', permutations }
+  }
+  const fixed: Partial<ConventionSet> = { ...options.fixed }
+  for (const id of claim.conventions) {
+    const axis = axisOfConvention(id)
+    if (axis) (fixed as Record<string, string>)[axis] = id
+  }
+  const axes = relevantAxes(claim.question.lhs, claim.question.rhs).filter(axis => fixed[axis] === undefined)
+  const memo = options.memo ?? new Map()
+  const variants: VariantResult[] = []
+  try {
+    for (const conventions of combinations(axes, fixed)) {
+      const meter = new BudgetMeter({ ...CLAIM_BUDGET, ...options.budget })
+      const comparison = compareSides(claim.question.lhs, claim.question.rhs, { conventions, meter, memo })
+      variants.push({ conventions, ...comparison })
+    }
+  }
+  catch (error) {
+    return { ...describeFailure(error), permutations }
+  }
+  return { status: 'evaluated', axes, fixed, variants, permutations }
+}
+
+function describeFailure(error: unknown): { status: 'unsupported' | 'error', message: string } {
+  if (error instanceof UnsupportedClaimError) return { status: 'unsupported', message: error.message }
+  if (error instanceof MathError) {
+    switch (error.code) {
+      case 'TOO_LARGE': return { status: 'error', message: `over budget: ${error.message}` }
+      case 'ABORTED': return { status: 'error', message: 'over budget: the run ran out of time' }
+      case 'NOT_IN_SPAN': case 'NOT_SYMMETRIC': return { status: 'unsupported', message: error.message }
+      default: return { status: 'error', message: `malformed: ${error.message}` }
+    }
+  }
+  return { status: 'error', message: `internal error: ${(error as Error)?.message ?? String(error)}` }
+}
+
+/** Every convention set over `axes`, the other axes taken from `fixed` or the reference. Reference first. */
+function combinations(axes: ConventionAxis[], fixed: Partial<ConventionSet>): ConventionSet[] {
+  let sets: ConventionSet[] = [{ ...REFERENCE_CONVENTIONS, ...fixed }]
+  for (const axis of axes) {
+    const choices = Object.keys(CONVENTION_AXES[axis].choices) as ConventionId[]
+    sets = sets.flatMap(set => choices.map(choice => ({ ...set, [axis]: choice })))
+  }
+  return sets
+}
+
+/** Which convention axes can change the value of these expressions. */
+export function relevantAxes(...exprs: Expr[]): ConventionAxis[] {
+  const found = new Set<ConventionAxis>()
+  const visit = (e: Expr): void => {
+    switch (e.type) {
+      case 'schubert':
+        found.add('indexing')
+        if (e.variant === 'double') found.add('doubleSign')
+        return
+      case 'grothendieck':
+        found.add('indexing')
+        found.add('beta')
+        if (e.variant === 'double') found.add('doubleSign')
+        return
+      case 'stanley': found.add('indexing'); found.add('partition'); return
+      case 'symmetric': if (e.family === 'schur') found.add('partition'); return
+      case 'littlewoodRichardson': case 'kostka': found.add('partition'); return
+      case 'length': case 'count': case 'structureConstant': found.add('indexing'); return
+      case 'add': e.terms.forEach(visit); return
+      case 'multiply': e.factors.forEach(visit); return
+      case 'negate': visit(e.arg); return
+      case 'power': visit(e.base); return
+      case 'dividedDifference': case 'evaluateAtOnes': visit(e.arg); return
+      case 'determinant': e.rows.flat().forEach(visit); return
+      default: return
+    }
+  }
+  exprs.forEach(visit)
+  return (Object.keys(CONVENTION_AXES) as ConventionAxis[]).filter(axis => found.has(axis))
+}
+
+/** Permutations a claim mentions, in one-line notation, for the report's drawings. */
+export function permutationsIn(...exprs: Expr[]): number[][] {
+  const seen = new Map<string, number[]>()
+  const add = (spec: PermutationSpec) => {
+    try {
+      const w = permutationOf(spec).trimmed()
+      seen.set(w.key, [...w.oneLine])
+    }
+    catch { /* malformed permutations are reported by the evaluation itself */ }
+  }
+  const visit = (e: Expr): void => {
+    switch (e.type) {
+      case 'schubert': case 'grothendieck': case 'stanley': case 'length': case 'count': add(e.perm); return
+      case 'structureConstant': add(e.u); add(e.v); add(e.w); return
+      case 'add': e.terms.forEach(visit); return
+      case 'multiply': e.factors.forEach(visit); return
+      case 'negate': visit(e.arg); return
+      case 'power': visit(e.base); return
+      case 'dividedDifference': case 'evaluateAtOnes': visit(e.arg); return
+      case 'determinant': e.rows.flat().forEach(visit); return
+      default: return
+    }
+  }
+  exprs.forEach(visit)
+  return [...seen.values()]
+}

@@ -1,0 +1,198 @@
+/**
+ * Compares the two sides of one claim under one set of conventions and says,
+ * term by term, what differs. The left side is the reference: the engine's value
+ * of it is "computed", the right side is what the manuscript "claims".
+ *
+ * Cheap invariants come first: when a side is a single Schubert polynomial with
+ * many terms, its degree ℓ(w) and its value at (1,…,1) (the number of pipe dreams,
+ * counted without expanding) are compared before anything is expanded.
+ */
+import type { Expr } from '../types/claims'
+import type { ClaimDiff, DiffTerm, DiffWrongCoefficient } from '../types/report'
+import { DIFF_LIMIT } from '../types/report'
+import {
+  combinationEntries, monomialLatex, partitionFromKey, Permutation, polynomialDifference, schubertAtOnes, schubertExpansion,
+  schubertProduct, type SchubertCombination, type SchurCombination,
+} from '../math'
+import { evaluate, permutationOf, type EvaluationEnv } from './evaluate'
+import { toPolynomial, UnsupportedClaimError, type Value } from './values'
+
+export interface Comparison {
+  holds: boolean
+  /** LaTeX of the computed (left) side, in the basis the claim is written in. */
+  computed: string | null
+  diff: ClaimDiff | null
+}
+
+/** Above this many pipe dreams, a mismatch found by invariants is reported without expanding. */
+const INVARIANTS_FIRST_ABOVE = 5000n
+
+export function compareSides(lhs: Expr, rhs: Expr, env: EvaluationEnv): Comparison {
+  const early = invariantMismatch(lhs, rhs, env) ?? invariantMismatch(rhs, lhs, env, true)
+  if (early) return early
+
+  const claimedCombination = writtenSchubertCombination(rhs, env)
+  if (claimedCombination) {
+    const computed = schubertCombinationOfSide(lhs, env)
+    return combinationComparison(computed, claimedCombination, 'schubert', schubertTermLatex)
+  }
+
+  const left = evaluate(lhs, env)
+  const right = evaluate(rhs, env)
+  if (left.kind === 'number' && right.kind === 'number') {
+    const holds = left.value === right.value
+    return { holds, computed: left.value.toString(), diff: holds ? null : { basis: 'number', claimed: right.value.toString(), computed: left.value.toString() } }
+  }
+  if (left.kind === 'symmetric' || right.kind === 'symmetric') {
+    return combinationComparison(schurOf(left), schurOf(right), 'schur', schurTermLatex)
+  }
+  const computed = toPolynomial(left)
+  const claimed = toPolynomial(right)
+  const difference = polynomialDifference(computed, claimed)
+  return {
+    holds: difference.equal,
+    computed: computed.toLatex(),
+    diff: difference.equal
+      ? null
+      : limitDiff('monomial',
+          difference.missing.map(t => monomialTerm(t.x, t.y, t.coefficient)),
+          difference.extra.map(t => monomialTerm(t.x, t.y, t.coefficient)),
+          difference.wrongCoefficient.map(t => ({ term: monomialLatex(t.x, t.y) || '1', claimed: String(t.actual), computed: String(t.expected) }))),
+  }
+}
+
+function schurOf(v: Value): SchurCombination {
+  if (v.kind === 'symmetric') return v.schur
+  if (v.kind === 'number') return v.value === 0n ? new Map() : new Map([['', Number(v.value)]])
+  throw new UnsupportedClaimError('one side is a symmetric function in infinitely many variables and the other a polynomial in finitely many; write s_λ(x_1,…,x_n) to compare them')
+}
+
+/**
+ * If `schubertSide` is a single Schubert polynomial with many terms and `other` is a plain
+ * polynomial, compare degree and value at ones without expanding S_w.
+ */
+function invariantMismatch(schubertSide: Expr, other: Expr, env: EvaluationEnv, swapped = false): Comparison | null {
+  if (schubertSide.type !== 'schubert' || schubertSide.variant !== 'single' || !isPlainPolynomial(other)) return null
+  const w = permutationOf(schubertSide.perm)
+  const atOnes = schubertAtOnes(env.conventions.indexing === 'perm-inverse' ? w.inverse() : w, env.meter)
+  if (atOnes <= INVARIANTS_FIRST_ABOVE) return null
+  const written = toPolynomial(evaluate(other, env))
+  const label = swapped ? 'the left side' : 'the right side'
+  if (!written.isZero() && (!written.isHomogeneous() || written.degree() !== w.length())) {
+    return { holds: false, computed: null, diff: { basis: 'invariant', invariant: 'degree', claimed: written.isHomogeneous() ? String(written.degree()) : `not homogeneous (${label})`, computed: String(w.length()) } }
+  }
+  const writtenAtOnes = written.evaluate(new Array(written.maxIndex('x')).fill(1), new Array(written.maxIndex('y')).fill(0))
+  if (writtenAtOnes !== atOnes) {
+    return { holds: false, computed: null, diff: { basis: 'invariant', invariant: 'value at ones', claimed: writtenAtOnes.toString(), computed: atOnes.toString() } }
+  }
+  return null
+}
+
+function isPlainPolynomial(expr: Expr): boolean {
+  switch (expr.type) {
+    case 'integer': case 'variable': return true
+    case 'add': return expr.terms.every(isPlainPolynomial)
+    case 'multiply': return expr.factors.every(isPlainPolynomial)
+    case 'negate': return isPlainPolynomial(expr.arg)
+    case 'power': return isPlainPolynomial(expr.base)
+    default: return false
+  }
+}
+
+/** Σ c_w S_w as written (single Schubert polynomials with integer coefficients), or null. */
+function writtenSchubertCombination(expr: Expr, env: EvaluationEnv): SchubertCombination | null {
+  const out: SchubertCombination = new Map()
+  const addTerm = (term: Expr, sign: number): boolean => {
+    if (term.type === 'negate') return addTerm(term.arg, -sign)
+    let coefficient = sign
+    let schubert: Expr | undefined
+    if (term.type === 'multiply' && term.factors.length === 2) {
+      const [a, b] = term.factors as [Expr, Expr]
+      const [number, object] = a.type === 'integer' ? [a, b] : b.type === 'integer' ? [b, a] : [undefined, undefined]
+      if (!number || number.type !== 'integer') return false
+      coefficient *= Number(number.value)
+      schubert = object
+    }
+    else schubert = term
+    if (schubert?.type !== 'schubert' || schubert.variant !== 'single') return false
+    const w = permutationOf(schubert.perm)
+    const key = (env.conventions.indexing === 'perm-inverse' ? w.inverse() : w).key
+    const next = (out.get(key) ?? 0) + coefficient
+    if (next === 0) out.delete(key)
+    else out.set(key, next)
+    return true
+  }
+  const terms = expr.type === 'add' ? expr.terms : [expr]
+  // A lone S_w is not a "combination" worth a basis diff; polynomials show more.
+  if (terms.length < 2 && !(expr.type === 'multiply')) return null
+  return terms.every(t => addTerm(t, 1)) ? out : null
+}
+
+/** The left side in the Schubert basis: products of two Schubert polynomials by the engine's product, else by expansion. */
+function schubertCombinationOfSide(expr: Expr, env: EvaluationEnv): SchubertCombination {
+  if (expr.type === 'multiply' && expr.factors.length === 2 && expr.factors.every(f => f.type === 'schubert' && f.variant === 'single')) {
+    const [u, v] = expr.factors.map(f => {
+      const w = permutationOf((f as Extract<Expr, { type: 'schubert' }>).perm)
+      return env.conventions.indexing === 'perm-inverse' ? w.inverse() : w
+    }) as [Permutation, Permutation]
+    return schubertProduct(u, v, env.meter)
+  }
+  return schubertExpansion(toPolynomial(evaluate(expr, env)), { budget: env.meter })
+}
+
+function combinationComparison(computed: Map<string, number>, claimed: Map<string, number>, basis: 'schubert' | 'schur', latex: (key: string) => string): Comparison {
+  const missing: DiffTerm[] = []
+  const extra: DiffTerm[] = []
+  const wrong: DiffWrongCoefficient[] = []
+  for (const [key, c] of computed) {
+    const written = claimed.get(key)
+    if (written === undefined) missing.push({ term: latex(key), coefficient: String(c) })
+    else if (written !== c) wrong.push({ term: latex(key), claimed: String(written), computed: String(c) })
+  }
+  for (const [key, c] of claimed) if (!computed.has(key)) extra.push({ term: latex(key), coefficient: String(c) })
+  const holds = missing.length === 0 && extra.length === 0 && wrong.length === 0
+  return { holds, computed: combinationLatex(computed, latex), diff: holds ? null : limitDiff(basis, missing, extra, wrong) }
+}
+
+function schubertTermLatex(key: string): string {
+  return `\\mathfrak{S}_{${oneLineLatex(key === '' ? [1] : key.split(',').map(Number))}}`
+}
+
+function schurTermLatex(key: string): string {
+  const parts = partitionFromKey(key)
+  return parts.length === 0 ? '1' : `s_{${parts.some(p => p > 9) ? parts.join(',') : parts.join('')}}`
+}
+
+function oneLineLatex(line: readonly number[]): string {
+  return line.some(v => v > 9) ? `[${line.join(',')}]` : line.join('')
+}
+
+function combinationLatex(combination: Map<string, number>, latex: (key: string) => string): string {
+  if (combination.size === 0) return '0'
+  const keys = [...combination.keys()]
+  const ordered = latex === schubertTermLatex
+    ? combinationEntries(combination as SchubertCombination).map(e => e.permutation.key)
+    : keys.sort((a, b) => b.localeCompare(a, 'en', { numeric: true }))
+  return ordered.map((key, i) => {
+    const c = combination.get(key)!
+    const sign = c < 0 ? ' - ' : i === 0 ? '' : ' + '
+    const magnitude = Math.abs(c) === 1 ? '' : `${Math.abs(c)}\\,`
+    return `${i === 0 && c < 0 ? '-' : sign}${magnitude}${latex(key)}`
+  }).join('')
+}
+
+function monomialTerm(x: readonly number[], y: readonly number[], coefficient: number): DiffTerm {
+  return { term: monomialLatex(x, y) || '1', coefficient: String(coefficient) }
+}
+
+function limitDiff(basis: 'monomial' | 'schubert' | 'schur', missing: DiffTerm[], extra: DiffTerm[], wrong: DiffWrongCoefficient[]): ClaimDiff {
+  const cut = missing.length > DIFF_LIMIT || extra.length > DIFF_LIMIT || wrong.length > DIFF_LIMIT
+  return {
+    basis,
+    missing: missing.slice(0, DIFF_LIMIT),
+    extra: extra.slice(0, DIFF_LIMIT),
+    wrongCoefficient: wrong.slice(0, DIFF_LIMIT),
+    ...(cut ? { truncated: { missing: missing.length, extra: extra.length, wrongCoefficient: wrong.length } } : {}),
+  }
+}
+

@@ -1,0 +1,117 @@
+/**
+ * From per-claim evaluations to verdicts: infer the paper's conventions from its own
+ * claims, check every claim under them, and flag the claims that only hold under
+ * a convention the rest of the paper does not follow.
+ */
+import type { Claim } from '../types/claims'
+import { CONVENTION_AXES, REFERENCE_CONVENTIONS, type ConventionAxis, type ConventionId, type ConventionSet } from '../types/conventions'
+import type { ClaimDiff, ConventionReport, ReportClaim, Verdict } from '../types/report'
+import type { ClaimEvaluation, VariantResult } from './claim'
+
+/**
+ * Evidence for a choice on an axis: a claim that holds, and holds only with that choice.
+ * The choice with the most evidence wins; ties keep the reference convention.
+ */
+export function inferConventions(evaluations: readonly ClaimEvaluation[], fixed: Partial<ConventionSet>): ConventionReport {
+  const evidence: Partial<Record<ConventionId, number>> = {}
+  for (const ev of evaluations) {
+    if (ev.status !== 'evaluated') continue
+    const holding = ev.variants.filter(v => v.holds)
+    if (holding.length === 0) continue
+    for (const axis of ev.axes) {
+      const choices = new Set(holding.map(v => v.conventions[axis]))
+      if (choices.size === 1) {
+        const id = [...choices][0] as ConventionId
+        evidence[id] = (evidence[id] ?? 0) + 1
+      }
+    }
+  }
+  const inferred: Partial<ConventionSet> = {}
+  for (const axis of Object.keys(CONVENTION_AXES) as ConventionAxis[]) {
+    if (fixed[axis] !== undefined) continue
+    const choices = Object.keys(CONVENTION_AXES[axis].choices) as ConventionId[]
+    const counts = choices.map(c => evidence[c] ?? 0)
+    const best = Math.max(...counts)
+    if (best === 0) continue
+    const reference = REFERENCE_CONVENTIONS[axis] as ConventionId
+    const winner = (evidence[reference] ?? 0) === best ? reference : choices[counts.indexOf(best)]!
+    ;(inferred as Record<string, string>)[axis] = winner
+  }
+  return { inferred, fixed, used: { ...REFERENCE_CONVENTIONS, ...inferred, ...fixed }, evidence }
+}
+
+/** The report line of one claim, checked under `used` unless its own tags say otherwise. */
+export function decideClaim(claim: Claim, ev: ClaimEvaluation, conventions: ConventionReport): ReportClaim {
+  const base = {
+    id: claim.id,
+    file: claim.file,
+    line: claim.line,
+    endLine: claim.endLine,
+    kind: claim.kind,
+    source: claim.source,
+    ...(claim.label ? { label: claim.label } : {}),
+    permutations: ev.permutations,
+    holdsUnder: [] as ConventionId[],
+    computed: null as string | null,
+    diff: null as ClaimDiff | null,
+  }
+  if (ev.status !== 'evaluated') {
+    return { ...base, verdict: ev.status === 'skipped' ? 'unsupported' : ev.status, message: ev.message, conventions: conventions.used }
+  }
+  const effective: ConventionSet = { ...conventions.used, ...ev.fixed }
+  const matches = (v: VariantResult) => ev.axes.every(axis => v.conventions[axis] === effective[axis])
+  const checked = ev.variants.find(matches) ?? ev.variants[0]!
+  const result = { ...base, conventions: effective, computed: checked.computed, diff: checked.diff }
+  if (checked.holds) return { ...result, verdict: 'verified' as Verdict, message: verifiedMessage(claim) }
+
+  const alternatives = ev.variants.filter(v => v.holds)
+    .map(v => ({ v, differing: ev.axes.filter(axis => v.conventions[axis] !== effective[axis]) }))
+    .sort((a, b) => a.differing.length - b.differing.length)
+  const nearest = alternatives[0]
+  if (!nearest) return { ...result, verdict: 'mismatch', message: mismatchMessage(checked.diff) }
+
+  const holdsUnder = nearest.differing.map(axis => nearest.v.conventions[axis] as ConventionId)
+  const breaking = nearest.differing.find(axis => conventions.inferred[axis] !== undefined && ev.fixed[axis] === undefined)
+  const labels = holdsUnder.map(describeConvention).join(' and ')
+  return {
+    ...result,
+    verdict: 'mismatch',
+    holdsUnder,
+    message: breaking
+      ? `Holds only with ${labels}, but the rest of the paper follows ${describeConvention(effective[breaking] as ConventionId)}.`
+      : `Holds only with ${labels}; under the conventions checked it fails.`,
+    ...(breaking ? { breaksPaperConvention: { axis: breaking, paper: effective[breaking] as ConventionId, claim: nearest.v.conventions[breaking] as ConventionId } } : {}),
+  }
+}
+
+function describeConvention(id: ConventionId): string {
+  for (const axis of Object.values(CONVENTION_AXES)) {
+    const choices = axis.choices as Record<string, string>
+    if (id in choices) return `${id} (${choices[id]})`
+  }
+  return id
+}
+
+function verifiedMessage(claim: Claim): string {
+  return claim.question?.rhs.type === 'integer' ? 'The value agrees with the computation.' : 'Both sides agree term by term.'
+}
+
+function mismatchMessage(diff: ClaimDiff | null): string {
+  if (!diff) return 'The two sides differ.'
+  switch (diff.basis) {
+    case 'number': return `The manuscript has ${diff.claimed}; the computation gives ${diff.computed}.`
+    case 'invariant': return `The ${diff.invariant} is ${diff.claimed} in the manuscript but ${diff.computed} by computation; found without expanding.`
+    default: {
+      const parts: string[] = []
+      const count = (list: unknown[], total: number | undefined, word: string) => {
+        const n = total ?? list.length
+        if (n > 0) parts.push(`${n} ${word}`)
+      }
+      const unit = diff.basis === 'monomial' ? 'term' : diff.basis === 'schubert' ? 'Schubert term' : 'Schur term'
+      count(diff.missing, diff.truncated?.missing, `${unit}${(diff.truncated?.missing ?? diff.missing.length) === 1 ? '' : 's'} missing`)
+      count(diff.extra, diff.truncated?.extra, `extra ${unit}${(diff.truncated?.extra ?? diff.extra.length) === 1 ? '' : 's'}`)
+      count(diff.wrongCoefficient, diff.truncated?.wrongCoefficient, `wrong coefficient${(diff.truncated?.wrongCoefficient ?? diff.wrongCoefficient.length) === 1 ? '' : 's'}`)
+      return `${parts.join(', ')}.`.replace(/^./, c => c.toUpperCase())
+    }
+  }
+}

@@ -1,0 +1,162 @@
+/**
+ * Evaluates the expressions of a claim with the engine, under one set of conventions.
+ *
+ * Conventions are applied where the manuscript's notation meets the engine:
+ * - doubleSign 'xy-plus': a double Schubert polynomial as written is the engine's
+ *   S_w(x; −y), i.e. y_j ↦ −y_j on the engine's value;
+ * - indexing 'perm-inverse': every permutation written stands for its inverse;
+ * - partition 'shape-columns': every partition labelling a Schur function (and the
+ *   shape of a Kostka number, and the partitions of a Littlewood–Richardson
+ *   coefficient) is read transposed;
+ * - beta: the β of Grothendieck polynomials (−1 or +1).
+ * Everything the manuscript writes explicitly (x_i, y_j, integers) is taken as written.
+ */
+import type { Expr, PermutationSpec } from '../types/claims'
+import type { ConventionSet } from '../types/conventions'
+import {
+  BudgetMeter, completeSymmetric, conjugate, countBumplessPipeDreams, countPipeDreams, countReducedWords, determinant,
+  dividedDifference, doubleSchubertPolynomial, elementarySymmetric, grothendieckPolynomial, kostkaNumber, littlewoodRichardson,
+  monomialSymmetric, partitionKey, Permutation, Polynomial, powerSum, schubertPolynomial, schurCombinationToPolynomial,
+  schurExpansion, schurPolynomial, stanleySymmetricFunction, structureConstant, toPartition, type SchurCombination,
+} from '../math'
+import { addValues, multiplyValues, negateValue, numberValue, powerValue, toPolynomial, UnsupportedClaimError, type Value } from './values'
+
+/** Engine results shared by every claim of a run (keys include everything the value depends on). */
+export type EngineMemo = Map<string, unknown>
+
+export interface EvaluationEnv {
+  conventions: ConventionSet
+  meter: BudgetMeter
+  memo: EngineMemo
+}
+
+function remember<T>(env: EvaluationEnv, key: string, compute: () => T): T {
+  if (env.memo.has(key)) return env.memo.get(key) as T
+  const value = compute()
+  env.memo.set(key, value)
+  return value
+}
+
+/** The engine permutation a written spec denotes, before conventions. e.g. `{form:'oneLine',entries:[2,1]}` is s_1. */
+export function permutationOf(spec: PermutationSpec): Permutation {
+  switch (spec.form) {
+    case 'oneLine': return Permutation.fromOneLine(spec.entries)
+    case 'cycles': return Permutation.fromCycles(spec.cycles)
+    case 'word': return Permutation.fromWord(spec.letters)
+    case 'longest': return Permutation.longest(spec.n)
+  }
+}
+
+function permutationIn(spec: PermutationSpec, env: EvaluationEnv): Permutation {
+  const w = permutationOf(spec)
+  return env.conventions.indexing === 'perm-inverse' ? w.inverse() : w
+}
+
+function partitionIn(parts: readonly number[], env: EvaluationEnv): number[] {
+  const lambda = toPartition(parts)
+  return env.conventions.partition === 'shape-columns' ? conjugate(lambda) : lambda
+}
+
+/** Evaluate an expression to an exact value. Throws engine errors and UnsupportedClaimError. */
+export function evaluate(expr: Expr, env: EvaluationEnv): Value {
+  env.meter.step()
+  switch (expr.type) {
+    case 'integer': return numberValue(BigInt(expr.value))
+    case 'variable': return { kind: 'polynomial', poly: expr.name === 'x' ? Polynomial.x(expr.index) : Polynomial.y(expr.index) }
+    case 'add': return expr.terms.map(t => evaluate(t, env)).reduce(addValues, numberValue(0))
+    case 'negate': return negateValue(evaluate(expr.arg, env))
+    case 'multiply': return expr.factors.reduce<Value>((acc, f) => multiplyValues(acc, evaluate(f, env), env.meter), numberValue(1))
+    case 'power': return powerValue(evaluate(expr.base, env), expr.exponent, env.meter)
+    case 'schubert': return { kind: 'polynomial', poly: schubertValue(permutationIn(expr.perm, env), expr.variant === 'double', env) }
+    case 'grothendieck': {
+      if (expr.variant === 'double') throw new UnsupportedClaimError('double Grothendieck polynomials are not computed yet')
+      const w = permutationIn(expr.perm, env)
+      const beta = env.conventions.beta === 'beta-plus' ? 1 : -1
+      return { kind: 'polynomial', poly: remember(env, `G|${beta}|${w.key}`, () => grothendieckPolynomial(w, beta, env.meter)) }
+    }
+    case 'stanley': {
+      const w = permutationIn(expr.perm, env)
+      return { kind: 'symmetric', schur: remember(env, `F|${w.key}`, () => stanleySymmetricFunction(w, { budget: env.meter })) }
+    }
+    case 'symmetric': return symmetricValue(expr, env)
+    case 'dividedDifference': {
+      const arg = toPolynomial(evaluate(expr.arg, env))
+      return { kind: 'polynomial', poly: dividedDifference(arg, expr.index, 'x', env.meter) }
+    }
+    case 'determinant': {
+      const matrix = expr.rows.map(row => row.map(entry => toPolynomial(evaluate(entry, env))))
+      if (matrix.some(row => row.length !== matrix.length)) throw new UnsupportedClaimError('the determinant of a matrix that is not square')
+      return { kind: 'polynomial', poly: determinant(matrix, env.meter) }
+    }
+    case 'evaluateAtOnes': {
+      const arg = evaluate(expr.arg, env)
+      if (arg.kind === 'number') return arg
+      const poly = arg.kind === 'symmetric'
+        ? symmetricInVariables(arg.schur, expr.variableCount, env)
+        : arg.poly
+      const xCount = Math.max(expr.variableCount ?? 0, poly.maxIndex('x'))
+      if (expr.variableCount !== undefined && poly.maxIndex('x') > expr.variableCount) {
+        throw new UnsupportedClaimError(`the polynomial involves x_${poly.maxIndex('x')} but is evaluated at ${expr.variableCount} ones`)
+      }
+      return numberValue(poly.evaluate(new Array(xCount).fill(1), new Array(poly.maxIndex('y')).fill(0)))
+    }
+    case 'length': return numberValue(permutationIn(expr.perm, env).length())
+    case 'count': {
+      const w = permutationIn(expr.perm, env)
+      switch (expr.objects) {
+        case 'bumplessPipeDreams': return numberValue(countBumplessPipeDreams(w, { budget: env.meter }))
+        case 'pipeDreams': return numberValue(countPipeDreams(w, env.meter))
+        case 'reducedWords': return numberValue(countReducedWords(w, env.meter))
+      }
+      break
+    }
+    case 'structureConstant': {
+      const [u, v, w] = [expr.u, expr.v, expr.w].map(p => permutationIn(p, env)) as [Permutation, Permutation, Permutation]
+      return numberValue(structureConstant(u, v, w, env.meter))
+    }
+    case 'littlewoodRichardson':
+      return numberValue(littlewoodRichardson(partitionIn(expr.nu, env), partitionIn(expr.lambda, env), partitionIn(expr.mu, env)))
+    case 'kostka':
+      return numberValue(kostkaNumber(partitionIn(expr.shape, env), toPartition(expr.content)))
+  }
+  throw new UnsupportedClaimError('an expression Scholium cannot evaluate')
+}
+
+/** S_w or S_w(x;y) as the manuscript writes it under the current sign convention. */
+function schubertValue(w: Permutation, double: boolean, env: EvaluationEnv): Polynomial {
+  if (!double) return remember(env, `S|${w.key}`, () => schubertPolynomial(w, env.meter))
+  const reference = remember(env, `SS|${w.key}`, () => doubleSchubertPolynomial(w, env.meter))
+  return env.conventions.doubleSign === 'xy-plus' ? remember(env, `SS+|${w.key}`, () => reference.negateY()) : reference
+}
+
+function symmetricValue(expr: Extract<Expr, { type: 'symmetric' }>, env: EvaluationEnv): Value {
+  const n = expr.variableCount
+  const k = expr.index[0] ?? 0
+  if (n !== undefined) {
+    switch (expr.family) {
+      case 'schur': return { kind: 'polynomial', poly: schurPolynomial(partitionIn(expr.index, env), n, env.meter) }
+      case 'elementary': return { kind: 'polynomial', poly: elementarySymmetric(k, n) }
+      case 'complete': return { kind: 'polynomial', poly: completeSymmetric(k, n) }
+      case 'powerSum': return { kind: 'polynomial', poly: powerSum(k, n) }
+      case 'monomial': return { kind: 'polynomial', poly: monomialSymmetric(toPartition(expr.index), n) }
+    }
+  }
+  // In infinitely many variables: work in the Schur basis. A symmetric function of degree d
+  // is determined by its restriction to d variables, which is what the expansions use.
+  switch (expr.family) {
+    case 'schur': return { kind: 'symmetric', schur: new Map([[partitionKey(partitionIn(expr.index, env)), 1]]) }
+    case 'elementary': return { kind: 'symmetric', schur: new Map([[partitionKey(new Array(k).fill(1)), 1]]) }
+    case 'complete': return { kind: 'symmetric', schur: new Map([[partitionKey(k > 0 ? [k] : []), 1]]) }
+    case 'powerSum': return { kind: 'symmetric', schur: schurExpansion(powerSum(k, Math.max(k, 1)), Math.max(k, 1), env.meter) }
+    case 'monomial': {
+      const lambda = toPartition(expr.index)
+      const d = Math.max(lambda.reduce((a, b) => a + b, 0), 1)
+      return { kind: 'symmetric', schur: schurExpansion(monomialSymmetric(lambda, d), d, env.meter) }
+    }
+  }
+}
+
+function symmetricInVariables(schur: SchurCombination, variableCount: number | undefined, env: EvaluationEnv): Polynomial {
+  if (variableCount === undefined) throw new UnsupportedClaimError('say how many variables a symmetric function is evaluated in, e.g. s_λ(1,…,1) with n ones')
+  return schurCombinationToPolynomial(schur, variableCount, env.meter)
+}

@@ -1,0 +1,89 @@
+/**
+ * Values a claim's expressions evaluate to, and arithmetic between them.
+ *
+ * - `number`: an exact integer (BigInt).
+ * - `polynomial`: a polynomial in x and y (the engine's Polynomial; integers promote to it).
+ * - `symmetric`: a symmetric function in infinitely many variables, in the Schur basis
+ *   (F_w, s_λ written without variables). It never mixes with polynomials: comparing
+ *   a symmetric function with a polynomial in finitely many x would silently truncate.
+ */
+import {
+  multiplySchurCombinations, partitionKey, Polynomial, type BudgetMeter, type SchurCombination,
+} from '../math'
+
+export type Value =
+  | { kind: 'number', value: bigint }
+  | { kind: 'polynomial', poly: Polynomial }
+  | { kind: 'symmetric', schur: SchurCombination }
+
+/** A claim we can read but not evaluate; becomes an `unsupported` verdict with this reason. */
+export class UnsupportedClaimError extends Error {
+  override readonly name = 'UnsupportedClaimError'
+}
+
+export const numberValue = (value: bigint | number): Value => ({ kind: 'number', value: BigInt(value) })
+
+export function toPolynomial(v: Value): Polynomial {
+  if (v.kind === 'polynomial') return v.poly
+  if (v.kind === 'number') return Polynomial.constant(safeNumber(v.value))
+  throw new UnsupportedClaimError('a symmetric function in infinitely many variables cannot be combined with a polynomial in finitely many; write s_λ(x_1,…,x_n) to fix the variables')
+}
+
+function toSymmetric(v: Value): SchurCombination {
+  if (v.kind === 'symmetric') return v.schur
+  if (v.kind === 'number') return v.value === 0n ? new Map() : new Map([[partitionKey([]), safeNumber(v.value)]])
+  throw new UnsupportedClaimError('a polynomial in finitely many variables cannot be combined with a symmetric function in infinitely many')
+}
+
+function safeNumber(n: bigint): number {
+  if (n > BigInt(Number.MAX_SAFE_INTEGER) || n < -BigInt(Number.MAX_SAFE_INTEGER)) {
+    throw new UnsupportedClaimError('an integer in this claim exceeds 2^53 and cannot be a polynomial coefficient')
+  }
+  return Number(n)
+}
+
+function combine(a: Value, b: Value): 'number' | 'polynomial' | 'symmetric' {
+  if (a.kind === 'number' && b.kind === 'number') return 'number'
+  if (a.kind === 'symmetric' || b.kind === 'symmetric') return 'symmetric'
+  return 'polynomial'
+}
+
+export function addValues(a: Value, b: Value): Value {
+  switch (combine(a, b)) {
+    case 'number': return numberValue((a as { value: bigint }).value + (b as { value: bigint }).value)
+    case 'polynomial': return { kind: 'polynomial', poly: toPolynomial(a).add(toPolynomial(b)) }
+    case 'symmetric': return { kind: 'symmetric', schur: addSchur(toSymmetric(a), toSymmetric(b), 1) }
+  }
+}
+
+export function negateValue(a: Value): Value {
+  if (a.kind === 'number') return numberValue(-a.value)
+  if (a.kind === 'polynomial') return { kind: 'polynomial', poly: a.poly.neg() }
+  return { kind: 'symmetric', schur: addSchur(new Map(), a.schur, -1) }
+}
+
+export function multiplyValues(a: Value, b: Value, meter: BudgetMeter): Value {
+  switch (combine(a, b)) {
+    case 'number': return numberValue((a as { value: bigint }).value * (b as { value: bigint }).value)
+    case 'polynomial': return { kind: 'polynomial', poly: toPolynomial(a).mul(toPolynomial(b), meter) }
+    case 'symmetric': return { kind: 'symmetric', schur: multiplySchurCombinations(toSymmetric(a), toSymmetric(b), meter) }
+  }
+}
+
+export function powerValue(a: Value, exponent: number, meter: BudgetMeter): Value {
+  if (exponent < 0) throw new UnsupportedClaimError('negative exponents are not polynomials')
+  let result: Value = numberValue(1)
+  for (let i = 0; i < exponent; i++) result = multiplyValues(result, a, meter)
+  return result
+}
+
+function addSchur(a: SchurCombination, b: SchurCombination, sign: 1 | -1): SchurCombination {
+  const out = new Map(a)
+  for (const [key, c] of b) {
+    const next = (out.get(key) ?? 0) + sign * c
+    if (!Number.isSafeInteger(next)) throw new UnsupportedClaimError('a Schur coefficient exceeds 2^53')
+    if (next === 0) out.delete(key)
+    else out.set(key, next)
+  }
+  return out
+}

@@ -1,0 +1,119 @@
+/**
+ * The check report: the same shape from the API (`GET /api/revisions/:id/report`)
+ * and from the command line (`scholium check --json`). Versioned by `schema`;
+ * fields are only ever added within a version. Every field is documented in the README.
+ */
+import type { ClaimKind } from './claims'
+import type { ConventionId, ConventionSet } from './conventions'
+
+export const REPORT_SCHEMA = 'scholium.report/1' as const
+
+export type Verdict = 'verified' | 'mismatch' | 'unsupported' | 'error'
+export const VERDICTS: readonly Verdict[] = ['verified', 'mismatch', 'unsupported', 'error']
+
+/** One term of a polynomial or one basis element of an expansion, as LaTeX with its coefficient. */
+export interface DiffTerm {
+  /** LaTeX of the monomial or basis element, e.g. `x_{1}^{2}x_{2}` or `\mathfrak{S}_{2143}` or `s_{21}`. */
+  term: string
+  /** Decimal string, so no precision is lost. */
+  coefficient: string
+}
+
+export interface DiffWrongCoefficient {
+  term: string
+  /** What the manuscript writes. */
+  claimed: string
+  /** What the engine computes. */
+  computed: string
+}
+
+/**
+ * What differs between the two sides of a failing claim.
+ * - polynomial: monomials; schubertBasis / schurBasis: basis elements; number: two values.
+ * Lists are cut at `DIFF_LIMIT` entries; `truncated` then says how many there were.
+ */
+export type ClaimDiff =
+  | {
+    basis: 'monomial' | 'schubert' | 'schur'
+    /** Computed but not written in the manuscript. */
+    missing: DiffTerm[]
+    /** Written in the manuscript but not in the computed value. */
+    extra: DiffTerm[]
+    wrongCoefficient: DiffWrongCoefficient[]
+    truncated?: { missing: number, extra: number, wrongCoefficient: number }
+  }
+  | { basis: 'number', claimed: string, computed: string }
+  /** Found from invariants alone, without expanding (degree, value at (1,…,1), number of terms). */
+  | { basis: 'invariant', invariant: 'degree' | 'value at ones' | 'number of terms', claimed: string, computed: string }
+
+export const DIFF_LIMIT = 60
+
+export interface ReportClaim {
+  id: string
+  file: string
+  /** 1-based, in `file`. */
+  line: number
+  endLine: number
+  kind: ClaimKind
+  verdict: Verdict
+  /**
+   * For a claim that fails under the conventions it is checked in: the convention ids
+   * (only the ones that differ) under which it does hold. Empty otherwise.
+   */
+  holdsUnder: ConventionId[]
+  /** The LaTeX as written. */
+  source: string
+  /** LaTeX of the engine's value of the claim's reference side (the left side of its step). */
+  computed: string | null
+  diff: ClaimDiff | null
+  /** One sentence for people: why not verified, or what was checked. */
+  message: string
+  label?: string
+  /** The conventions this claim was checked in (tags, manuscript settings, inferred, reference). */
+  conventions: ConventionSet
+  /** Set when the claim holds only under a convention the rest of the paper does not follow. */
+  breaksPaperConvention?: { axis: keyof ConventionSet, paper: ConventionId, claim: ConventionId }
+  /** Permutations the claim mentions (one-line), for drawings. */
+  permutations: number[][]
+}
+
+export interface ConventionReport {
+  /** What the paper's own claims suggest, axis by axis (only axes with evidence). */
+  inferred: Partial<ConventionSet>
+  /** Fixed by a manuscript setting or the command line. */
+  fixed: Partial<ConventionSet>
+  /** What claims were checked in, unless a tag says otherwise. */
+  used: ConventionSet
+  /** How many claims hold only under each choice (the evidence for `inferred`). */
+  evidence: Partial<Record<ConventionId, number>>
+}
+
+export interface ReportSummary {
+  claims: number
+  verified: number
+  mismatch: number
+  unsupported: number
+  error: number
+  /** Mismatches that hold under another convention (a subset of `mismatch`). */
+  otherConvention: number
+  /** Claims the author asked to skip (a subset of `unsupported`). */
+  skipped: number
+  durationMs: number
+}
+
+export interface ReportFile {
+  path: string
+  sha256?: string
+  role: 'main' | 'included' | 'unused'
+  lines: number
+}
+
+export interface Report {
+  schema: typeof REPORT_SCHEMA
+  engine: { version: string }
+  conventions: ConventionReport
+  summary: ReportSummary
+  files: ReportFile[]
+  warnings: { code: string, message: string, file?: string, line?: number }[]
+  claims: ReportClaim[]
+}
