@@ -16,7 +16,7 @@ import { join, resolve, dirname } from 'node:path'
 import { fileURLToPath } from 'node:url'
 import {
   Permutation, parsePermutation, schubertProduct, SchubertFamily, schubertPolynomial, schubertAtOnes,
-  bumplessPipeDreams, combinationEntries, ENGINE_VERSION,
+  bumplessPipeDreams, ENGINE_VERSION,
 } from '../shared/math'
 
 const here = dirname(fileURLToPath(import.meta.url))

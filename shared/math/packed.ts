@@ -89,13 +89,13 @@ export class PackedContext {
           for (let k = 0; k < p - q; k++) {
             const nc = base + (p - 1 - k) * Ri + (q + k) * Rj
             if (dense[nc] === 0) touched[nt++] = nc
-            dense[nc] += c
+            dense[nc] = dense[nc]! + c
           }
         } else {
           for (let k = 0; k < q - p; k++) {
             const nc = base + (q - 1 - k) * Ri + (p + k) * Rj
             if (dense[nc] === 0) touched[nt++] = nc
-            dense[nc] -= c
+            dense[nc] = dense[nc]! - c
           }
         }
       }

@@ -78,7 +78,7 @@ describe('Schubert polynomials: published facts', () => {
       expect(schubertPolynomial(parsePermutation(w)).toLatex(), `S_${w}`).toBe(expected.toLatex())
     }
   })
-  it("Macdonald's identity S_w(1,…,1) = (1/ℓ!) Σ_{reduced words a} a_1⋯a_ℓ (Macdonald, "Notes on Schubert Polynomials", 1991; recalled from memory)", () => {
+  it("Macdonald's identity S_w(1,…,1) = (1/ℓ!) Σ_{reduced words a} a_1⋯a_ℓ (Macdonald, ‘Notes on Schubert Polynomials’, 1991; recalled from memory)", () => {
     for (const n of [3, 4, 5]) {
       for (const w of allPermutations(n)) {
         let fact = 1n
