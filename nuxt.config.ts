@@ -2,6 +2,9 @@
 // so there is no app/ folder to wonder about.
 export default defineNuxtConfig({
   srcDir: '.',
+  // Separate build folders let a second build (a helper's, a benchmark's) run beside the main one.
+  buildDir: process.env.SCHOLIUM_BUILD_DIR || '.nuxt',
+  nitro: { output: { dir: process.env.SCHOLIUM_OUTPUT_DIR || '.output' } },
   compatibilityDate: '2026-11-01',
   modules: ['@nuxtjs/tailwindcss', '@pinia/nuxt', 'nuxt-auth-utils'],
   devtools: { enabled: false },

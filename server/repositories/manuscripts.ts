@@ -1,5 +1,5 @@
 import type { Db } from '../database/connect'
-import type { ManuscriptListItem, ManuscriptRole, MemberView } from '#shared/types/api'
+import type { ManuscriptListItem, ManuscriptRole, MemberView, RevisionViewer } from '#shared/types/api'
 
 export async function insertManuscript(db: Db, input: { title: string, ownerId: string }): Promise<{ id: string }> {
   const row = await db.insertInto('manuscripts').values({ title: input.title, owner_id: input.ownerId, conventions: '{}' })
@@ -62,4 +62,30 @@ export async function deleteManuscript(db: Db, manuscriptId: string): Promise<vo
 
 export async function findManuscriptByTitleForOwner(db: Db, ownerId: string, title: string) {
   return db.selectFrom('manuscripts').select('id').where('owner_id', '=', ownerId).where('title', '=', title).executeTakeFirst()
+}
+
+/**
+ * How a user may see a revision: as a member of its manuscript, as a referee of a
+ * submission of it, or as the editor of a venue it was submitted to. Undefined: not at all.
+ */
+export async function findRevisionAccess(db: Db, revisionId: string, userId: string) {
+  const revision = await db.selectFrom('revisions as r')
+    .innerJoin('manuscripts as m', 'm.id', 'r.manuscript_id')
+    .select(['r.id', 'r.number', 'm.id as manuscriptId', 'm.title', 'm.conventions'])
+    .where('r.id', '=', revisionId)
+    .executeTakeFirst()
+  if (!revision) return undefined
+  const grant = (viewer: RevisionViewer) => ({ revisionId: revision.id, revisionNumber: revision.number, manuscriptId: revision.manuscriptId, title: revision.title, conventions: revision.conventions, viewer })
+  const member = await db.selectFrom('manuscript_members').select('role')
+    .where('manuscript_id', '=', revision.manuscriptId).where('user_id', '=', userId).executeTakeFirst()
+  if (member) return grant('member')
+  const referee = await db.selectFrom('referee_assignments as a').innerJoin('submissions as s', 's.id', 'a.submission_id')
+    .select('a.id').where('s.revision_id', '=', revisionId).where('a.referee_id', '=', userId).where('a.status', '!=', 'withdrawn')
+    .executeTakeFirst()
+  if (referee) return grant('referee')
+  const editor = await db.selectFrom('venue_editors as ve').innerJoin('submissions as s', 's.venue_id', 've.venue_id')
+    .select('ve.venue_id').where('s.revision_id', '=', revisionId).where('ve.user_id', '=', userId)
+    .executeTakeFirst()
+  if (editor) return grant('editor')
+  return undefined
 }

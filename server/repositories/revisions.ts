@@ -58,3 +58,7 @@ export async function isStorageKeyReferenced(db: Db, storageKey: string): Promis
   const row = await db.selectFrom('revision_files').select('id').where('storage_key', '=', storageKey).limit(1).executeTakeFirst()
   return row !== undefined
 }
+
+export async function listRevisionFileKeys(db: Db, revisionId: string) {
+  return db.selectFrom('revision_files').select(['path', 'storage_key', 'sha256']).where('revision_id', '=', revisionId).orderBy('path').execute()
+}

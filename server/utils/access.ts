@@ -1,6 +1,6 @@
 import type { H3Event } from 'h3'
-import type { ManuscriptRole, SessionUser } from '#shared/types/api'
-import { findManuscriptMembership } from '../repositories/manuscripts'
+import type { ManuscriptRole, RevisionViewer, SessionUser } from '#shared/types/api'
+import { findManuscriptMembership, findRevisionAccess } from '../repositories/manuscripts'
 import { isVenueEditor } from '../repositories/venues'
 import { listAssignmentsForReferee } from '../repositories/submissions'
 
@@ -18,14 +18,17 @@ export type Requirement =
   | { manuscript: string, owner?: boolean }
   | { venueEditor: string }
   | { refereeAssignment: string }
+  | { revision: string }
 
 export interface ManuscriptGrant { user: SessionUser, manuscriptId: string, role: ManuscriptRole, isOwner: boolean, title: string, conventions: Record<string, string> }
+export interface RevisionGrant { user: SessionUser, revisionId: string, revisionNumber: number, manuscriptId: string, title: string, conventions: Record<string, string>, viewer: RevisionViewer }
 export interface AssignmentGrant { user: SessionUser, assignmentId: string, submissionId: string, revisionId: string, manuscriptId: string, title: string, venueName: string, revisionNumber: number, overallNote: string, released: boolean }
 
 export async function authorize(event: H3Event, need: { manuscript: string, owner?: boolean }): Promise<ManuscriptGrant>
 export async function authorize(event: H3Event, need: { refereeAssignment: string }): Promise<AssignmentGrant>
+export async function authorize(event: H3Event, need: { revision: string }): Promise<RevisionGrant>
 export async function authorize(event: H3Event, need: Requirement): Promise<{ user: SessionUser }>
-export async function authorize(event: H3Event, need: Requirement): Promise<{ user: SessionUser } | ManuscriptGrant | AssignmentGrant> {
+export async function authorize(event: H3Event, need: Requirement): Promise<{ user: SessionUser } | ManuscriptGrant | AssignmentGrant | RevisionGrant> {
   const session = await getUserSession(event)
   const user = session.user as SessionUser | undefined
   if (!user) fail(401, 'not-signed-in', 'Please sign in')
@@ -46,6 +49,11 @@ export async function authorize(event: H3Event, need: Requirement): Promise<{ us
   if ('venueEditor' in need) {
     if (!isUuid(need.venueEditor) || !(await isVenueEditor(db, need.venueEditor, user.id))) fail(404, 'not-found', 'No such venue')
     return { user }
+  }
+  if ('revision' in need) {
+    const access = isUuid(need.revision) ? await findRevisionAccess(db, need.revision, user.id) : undefined
+    if (!access) fail(404, 'not-found', 'No such revision')
+    return { user, ...access }
   }
   const assignment = isUuid(need.refereeAssignment)
     ? (await listAssignmentsForReferee(db, user.id)).find(a => a.id === need.refereeAssignment)

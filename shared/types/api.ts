@@ -179,3 +179,22 @@ export interface InboxMessage {
   subject: string
   text: string
 }
+
+/** Who is looking at a revision's report: a member of the manuscript, an assigned referee, or the venue's editor. */
+export type RevisionViewer = 'member' | 'referee' | 'editor'
+
+export interface RevisionReportView {
+  manuscript: { id: string, title: string }
+  revision: { id: string, number: number, mainFile: string | null, files: RevisionFileView[] }
+  viewer: RevisionViewer
+  /** The newest check run of this revision, finished or not. */
+  run: CheckRunView | null
+  /** The report of the newest finished run, or null while none has finished. */
+  report: import('./report').Report | null
+}
+
+export interface SourceFileView {
+  path: string
+  /** The text, decoded as UTF-8 (Latin-1 when that fails); null for files that are not text (images, PDF). */
+  text: string | null
+}
