@@ -39,6 +39,9 @@ export {
   monkProduct,
   structureConstant,
   schubertProductByExpansion,
+  type DoubleSchubertCombination,
+  doubleSchubertExpansion,
+  doubleSchubertProduct,
 } from './schubert-basis'
 export * from './symmetric'
 export * from './stanley'

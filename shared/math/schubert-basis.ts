@@ -15,8 +15,8 @@
  * - Monk's rule: S_{s_r} S_w = Σ_{j ≤ r < k, ℓ(w t_{jk}) = ℓ(w)+1} S_{w t_{jk}}.
  */
 import { Permutation } from './permutation'
-import { Polynomial, accumulate, decodeMonomial } from './polynomial'
-import { packedSchubert, schubertPolynomial, transitionStep } from './schubert'
+import { Polynomial, accumulate, decodeMonomial, encodeMonomial } from './polynomial'
+import { doubleSchubertPolynomial, packedSchubert, schubertPolynomial, transitionStep } from './schubert'
 import { NotInSpanError } from './errors'
 import { addChecked, mulChecked } from './coefficient'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
@@ -83,6 +83,51 @@ export function schubertExpansion(f: Polynomial, options: { within?: number; bud
     meter.terms(rest.size)
   }
   return out
+}
+
+/** A combination Σ c_w(y) S_w(x; y) with coefficients polynomials in y (keys as in SchubertCombination). */
+export type DoubleSchubertCombination = Map<string, Polynomial>
+
+/**
+ * Expand a polynomial in x and y in the double Schubert basis over ℤ[y]; e.g. x_1 ↦ S_{21}(x;y) + y_1.
+ * S_w(x; y) = S_w(x) + (terms of lower x-degree), so peeling the x-leading term (largest
+ * x-degree, then last variable first) gives the coefficients c_w(y) exactly.
+ */
+export function doubleSchubertExpansion(f: Polynomial, options: { within?: number; budget?: Budget | BudgetMeter } = {}): DoubleSchubertCombination {
+  const meter = toMeter(options.budget)
+  const rest = new Map(f.terms)
+  const out: DoubleSchubertCombination = new Map()
+  const xDegree = (e: readonly number[]): number => e.reduce((a, b) => a + b, 0)
+  while (rest.size > 0) {
+    meter.step(rest.size)
+    let best: number[] | undefined
+    for (const k of rest.keys()) {
+      const e = decodeMonomial(k).x
+      if (best === undefined || xDegree(e) > xDegree(best) || (xDegree(e) === xDegree(best) && compareLeading(e, best) > 0)) best = e
+    }
+    const bestX = encodeMonomial(best!)
+    // c(y): all terms whose x-part is exactly x^best
+    const coeff = new Map<string, number>()
+    for (const [k, c] of rest) {
+      const e = decodeMonomial(k)
+      if (encodeMonomial(e.x) === bestX) coeff.set(encodeMonomial([], e.y), c)
+    }
+    const c = new Polynomial(coeff)
+    const w = Permutation.fromLehmerCode(best!)
+    if (options.within !== undefined && w.trimmed().size > options.within) {
+      throw new NotInSpanError(`not in the span of {S_w(x;y) : w ∈ S_${options.within}} over ℤ[y]: the expansion needs S_${w.toString()}`)
+    }
+    out.set(w.key, c)
+    for (const [k, v] of c.mul(doubleSchubertPolynomial(w, meter), meter).terms) accumulate(rest, k, -v)
+    meter.terms(rest.size)
+  }
+  return out
+}
+
+/** S_u(x;y) · S_v(x;y) in the double Schubert basis (equivariant structure constants, polynomials in y). */
+export function doubleSchubertProduct(u: Permutation, v: Permutation, budget?: Budget | BudgetMeter): DoubleSchubertCombination {
+  const meter = toMeter(budget)
+  return doubleSchubertExpansion(doubleSchubertPolynomial(u, meter).mul(doubleSchubertPolynomial(v, meter), meter), { budget: meter })
 }
 
 // ---- products -------------------------------------------------------------------------

@@ -7,6 +7,7 @@ import {
   schurProduct, omega, conjugate, schurCombinationToPolynomial, multiplySchurCombinations, partitionsOf,
   stanleySymmetricFunction, schurCombinationsEqual, standardTableauxCount, countReducedWords, isGrassmannian,
   backStableSchubert, backStableTruncation, determinant, isVexillary, vexillaryShape, partitionFromKey,
+  doubleSchubertExpansion, doubleSchubertProduct, doubleSchubertPolynomial,
 } from '../../../shared/math'
 import { seeded, randomPermutation, randomInt } from './helpers'
 
@@ -102,6 +103,20 @@ describe('symmetric polynomials', () => {
       expect(determinant(m).equals(schurPolynomial(lam, 4))).toBe(true)
     }
   })
+  it('dual Jacobi–Trudi: s_λ = det[e_{λ′_i − i + j}] (common practice), λ ⊢ 4, 4 variables', () => {
+    const e = (k: number, n: number) => (k < 0 ? Polynomial.zero() : k === 0 ? Polynomial.one() : elementarySymmetric(k, n))
+    for (const lam of partitionsOf(4)) {
+      const c = conjugate(lam)
+      const m = Array.from({ length: c.length }, (_, i) => Array.from({ length: c.length }, (_, j) => e(c[i]! - i + j, 4)))
+      expect(determinant(m).equals(schurPolynomial(lam, 4))).toBe(true)
+    }
+  })
+  it('flagged Jacobi–Trudi for a 321-avoiding example: S_{1342} = det[h_{λ_i−i+j}(x_1..x_{φ_i})] with λ = 11, φ = (3, 3) (common practice)', () => {
+    // 1342 is Grassmannian with descent at 3: S_{1342} = s_{11}(x_1, x_2, x_3) = e_2(x_1, x_2, x_3)
+    const h = (k: number, n: number) => (k < 0 ? Polynomial.zero() : completeSymmetric(k, n))
+    const m = [[h(1, 3), h(2, 3)], [h(0, 3), h(1, 3)]]
+    expect(determinant(m).equals(schubertPolynomial(P('1342')))).toBe(true)
+  })
   it('Grassmannian Schubert polynomials are Schur polynomials: S_w = s_λ(x_1..x_k)', () => {
     for (const w of allPermutations(5).filter(w => isGrassmannian(w) && w.length() > 0)) {
       const k = w.descents()[0]!
@@ -187,5 +202,48 @@ describe('back-stable Schubert polynomials', () => {
     const withSym = terms.find(t => t.u.length() === 1)!
     expect([...withSym.symmetric]).toEqual([['1', 1]])
     expect(withSym.polynomial.equals(Polynomial.one())).toBe(true)
+  })
+})
+
+describe('double Schubert basis over ℤ[y]', () => {
+  it('x_1 = S_{21}(x;y) + y_1, and S_w(x;y) expands to itself', () => {
+    const c = doubleSchubertExpansion(Polynomial.x(1))
+    expect(c.get('2,1')!.equals(Polynomial.one())).toBe(true)
+    expect(c.get('')!.equals(Polynomial.y(1))).toBe(true)
+    for (const w of allPermutations(4)) {
+      const e = doubleSchubertExpansion(doubleSchubertPolynomial(w))
+      expect(e.size).toBe(1)
+      expect(e.get(w.key)!.equals(Polynomial.one())).toBe(true)
+    }
+  })
+  it('equivariant Monk rule: S_{s_r}(x;y) S_w(x;y) = Σ_{covers} S_{w t_jk} + (Σ_{i≤r} (y_{w(i)} − y_i)) S_w (common practice)', () => {
+    for (const w of allPermutations(4)) for (let r = 1; r <= 3; r++) {
+      const prod = doubleSchubertProduct(Permutation.simple(r), w)
+      let diag = Polynomial.zero()
+      for (let i = 1; i <= r; i++) diag = diag.add(Polynomial.y(w.at(i))).sub(Polynomial.y(i))
+      const monk = monkProduct(r, w)
+      for (const [k, c] of prod) {
+        if (k === w.key) expect(c.equals(diag)).toBe(true)
+        else expect(c.equals(Polynomial.constant(monk.get(k) ?? 0))).toBe(true)
+      }
+      for (const k of monk.keys()) expect(prod.has(k)).toBe(true)
+      if (!diag.isZero()) expect(prod.has(w.key)).toBe(true)
+    }
+  })
+  it('at y = 0 the equivariant constants are the ordinary ones (seeded, S_4)', () => {
+    const rand = seeded(41)
+    for (let t = 0; t < 8; t++) {
+      const u = randomPermutation(rand, 4)
+      const v = randomPermutation(rand, 4)
+      const ordinary = schubertProduct(u, v)
+      const eq = doubleSchubertProduct(u, v)
+      for (const [k, c] of eq) {
+        const atZero = Number(c.evaluate([], []))
+        expect(atZero).toBe(ordinary.get(k) ?? 0)
+      }
+    }
+  })
+  it('refuses outside the span asked for', () => {
+    expect(() => doubleSchubertExpansion(Polynomial.x(3), { within: 3 })).toThrow(NotInSpanError)
   })
 })
