@@ -111,11 +111,13 @@ describe('symmetric polynomials', () => {
       expect(determinant(m).equals(schurPolynomial(lam, 4))).toBe(true)
     }
   })
-  it('flagged Jacobi–Trudi for a 321-avoiding example: S_{1342} = det[h_{λ_i−i+j}(x_1..x_{φ_i})] with λ = 11, φ = (3, 3) (common practice)', () => {
-    // 1342 is Grassmannian with descent at 3: S_{1342} = s_{11}(x_1, x_2, x_3) = e_2(x_1, x_2, x_3)
+  it('flagged Jacobi–Trudi: S_{1432} = det[h_{λ_i−i+j}(x_1..x_{φ_i})] with λ = 21, flags φ = (2, 3) (vexillary, common practice; expanded by hand)', () => {
     const h = (k: number, n: number) => (k < 0 ? Polynomial.zero() : completeSymmetric(k, n))
-    const m = [[h(1, 3), h(2, 3)], [h(0, 3), h(1, 3)]]
-    expect(determinant(m).equals(schubertPolynomial(P('1342')))).toBe(true)
+    const m = [[h(2, 2), h(3, 2)], [h(0, 3), h(1, 3)]]
+    expect(determinant(m).equals(schubertPolynomial(P('1432')))).toBe(true)
+    // with the unflagged determinant (3 variables in both rows) the identity fails
+    const unflagged = [[h(2, 3), h(3, 3)], [h(0, 3), h(1, 3)]]
+    expect(determinant(unflagged).equals(schubertPolynomial(P('1432')))).toBe(false)
   })
   it('Grassmannian Schubert polynomials are Schur polynomials: S_w = s_λ(x_1..x_k)', () => {
     for (const w of allPermutations(5).filter(w => isGrassmannian(w) && w.length() > 0)) {
