@@ -1,0 +1,110 @@
+/**
+ * Command-line arguments of `scholium check`, parsed without a library so that every
+ * refusal has its own clear message.
+ *
+ *   scholium check <source> [--json] [--convention <id>]… [--main <file>]
+ *
+ * A parse never throws: it gives either the options or a usage problem (exit code 2).
+ */
+import { ALL_CONVENTION_IDS, axisOfConvention, type ConventionAxis, type ConventionId, type ConventionSet } from '../../shared/types/conventions'
+
+export interface CheckCommand {
+  command: 'check'
+  /** The .tex file, folder or archive, as given. */
+  source: string
+  json: boolean
+  /** Conventions fixed from the command line, one per axis at most. */
+  fixed: Partial<ConventionSet>
+  /** The main file inside a folder or archive, relative to its root. */
+  main?: string
+}
+
+export type ParsedArguments =
+  | CheckCommand
+  | { command: 'help' }
+  | { command: 'version' }
+  | { command: 'problem', message: string }
+
+export const USAGE = `Usage: scholium check <file.tex | folder | file.zip | file.tar.gz> [options]
+
+Checks the worked examples of a LaTeX manuscript and marks every line that carries a claim.
+
+Options:
+  --json                 print the report as JSON (schema scholium.report/1) instead of text
+  --convention <ids>     fix conventions instead of inferring them; repeatable, or comma-separated
+                         (--convention xy-plus --convention perm-inverse, --convention=xy-plus,perm-inverse)
+  --main <file>          the main file inside a folder or archive (default: the one with \\documentclass)
+  -h, --help             show this text
+  --version              print the version of the engine
+
+Convention ids: ${ALL_CONVENTION_IDS.join(', ')}
+
+Exit status: 0 every checked claim verified (unsupported and skipped claims do not count),
+             1 at least one claim is wrong or could not be computed (mismatch or error),
+             2 the command or its input could not be used (no such path, unreadable archive,
+               no .tex file, unknown option or convention),
+             3 Scholium itself failed (please report it).`
+
+/** Parse `argv` (without node and the script), e.g. `parseArguments(['check', 'paper.tex', '--json'])`. */
+export function parseArguments(argv: readonly string[]): ParsedArguments {
+  if (argv.length === 0) return { command: 'problem', message: 'no command given; try `scholium check paper.tex`.' }
+  if (argv.includes('-h') || argv.includes('--help') || argv[0] === 'help') return { command: 'help' }
+  if (argv[0] === '--version') return { command: 'version' }
+  if (argv[0] !== 'check') return { command: 'problem', message: `unknown command "${argv[0]}"; the command is \`scholium check <source>\`.` }
+
+  const sources: string[] = []
+  const conventionIds: string[] = []
+  let json = false
+  let main: string | undefined
+  let onlyPositional = false
+  for (let i = 1; i < argv.length; i++) {
+    const arg = argv[i]!
+    if (onlyPositional || !arg.startsWith('-') || arg === '-') {
+      sources.push(arg)
+      continue
+    }
+    if (arg === '--') { onlyPositional = true; continue }
+    const eq = arg.indexOf('=')
+    const name = eq >= 0 ? arg.slice(0, eq) : arg
+    const inlineValue = eq >= 0 ? arg.slice(eq + 1) : undefined
+    const takeValue = (): string | null => {
+      if (inlineValue !== undefined) return inlineValue
+      const next = argv[i + 1]
+      if (next === undefined || (next.startsWith('--') && next.length > 2)) return null
+      i++
+      return next
+    }
+    switch (name) {
+      case '--json':
+        if (inlineValue !== undefined) return { command: 'problem', message: '--json takes no value.' }
+        json = true
+        break
+      case '--convention': {
+        const value = takeValue()
+        if (value === null || value.trim() === '') return { command: 'problem', message: `--convention needs an id; valid ids: ${ALL_CONVENTION_IDS.join(', ')}.` }
+        conventionIds.push(...value.split(',').map(s => s.trim()).filter(s => s !== ''))
+        break
+      }
+      case '--main': {
+        const value = takeValue()
+        if (value === null || value === '') return { command: 'problem', message: '--main needs a file name, e.g. --main paper.tex.' }
+        main = value
+        break
+      }
+      default:
+        return { command: 'problem', message: `unknown option "${name}"; see scholium --help.` }
+    }
+  }
+  if (sources.length === 0) return { command: 'problem', message: 'no source given; name a .tex file, a folder, or a .zip / .tar.gz archive.' }
+  if (sources.length > 1) return { command: 'problem', message: `one source at a time (got ${sources.length}: ${sources.join(', ')}); put the files in a folder or an archive.` }
+
+  const fixed: Partial<Record<ConventionAxis, ConventionId>> = {}
+  for (const id of conventionIds) {
+    const axis = axisOfConvention(id)
+    if (!axis) return { command: 'problem', message: `unknown convention "${id}"; valid ids: ${ALL_CONVENTION_IDS.join(', ')}.` }
+    const previous = fixed[axis]
+    if (previous !== undefined && previous !== id) return { command: 'problem', message: `conventions "${previous}" and "${id}" choose differently on the same axis (${axis}); give one.` }
+    fixed[axis] = id as ConventionId
+  }
+  return { command: 'check', source: sources[0]!, json, fixed: fixed as Partial<ConventionSet>, ...(main !== undefined ? { main } : {}) }
+}

@@ -1,0 +1,68 @@
+/**
+ * `scholium check`: reads a manuscript from disk, checks it with the same pipeline as the
+ * server (shared/check), and prints the report as text or JSON. No database, no network.
+ *
+ * Exit codes (also in USAGE): 0 all checked claims verified; 1 a mismatch or an error claim;
+ * 2 bad command or input; 3 an internal failure.
+ */
+import { checkManuscript } from '../../shared/check'
+import { ENGINE_VERSION } from '../../shared/math'
+import type { Report } from '../../shared/types/report'
+import { parseArguments, USAGE, type CheckCommand } from './args'
+import { painter, renderReport } from './render'
+import { readSource, SourceProblem, type SourceFiles } from './sources'
+
+export const EXIT = { ok: 0, failed: 1, badInput: 2, internal: 3 } as const
+
+export interface CliIo {
+  out: (text: string) => void
+  err: (text: string) => void
+  /** Colour the text report (a terminal, NO_COLOR unset). */
+  colour: boolean
+}
+
+/** Run the command line; returns the exit code. e.g. `await runCli(['check', 'paper.tex'], io)`. */
+export async function runCli(argv: readonly string[], io: CliIo): Promise<number> {
+  const parsed = parseArguments(argv)
+  switch (parsed.command) {
+    case 'help': io.out(`${USAGE}\n`); return EXIT.ok
+    case 'version': io.out(`scholium engine ${ENGINE_VERSION}\n`); return EXIT.ok
+    case 'problem': io.err(`scholium: ${parsed.message}\n`); return EXIT.badInput
+    case 'check': return runCheck(parsed, io)
+  }
+}
+
+async function runCheck(command: CheckCommand, io: CliIo): Promise<number> {
+  let source: SourceFiles
+  try {
+    source = await readSource(command.source)
+  }
+  catch (error) {
+    if (error instanceof SourceProblem) { io.err(`scholium: ${error.message}\n`); return EXIT.badInput }
+    const errno = error as NodeJS.ErrnoException
+    if (typeof errno?.code === 'string' && typeof errno.path === 'string') {
+      io.err(`scholium: ${errno.path}: cannot be read (${errno.code}).\n`)
+      return EXIT.badInput
+    }
+    throw error
+  }
+  const main = command.main ?? source.main
+  if (command.main !== undefined && !source.files.some(f => f.path === command.main)) {
+    io.err(`scholium: --main ${command.main}: no such file in ${command.source} (files: ${source.files.map(f => f.path).join(', ')}).\n`)
+    return EXIT.badInput
+  }
+  const report = checkManuscript({
+    files: Object.fromEntries(source.files.map(f => [f.path, new Uint8Array(f.bytes.buffer, f.bytes.byteOffset, f.bytes.length)])),
+    hashes: Object.fromEntries(source.files.map(f => [f.path, f.sha256])),
+    ...(main !== undefined ? { main } : {}),
+  }, { fixed: command.fixed })
+  withSkippedFiles(report, source.skipped)
+  io.out(command.json ? `${JSON.stringify(report, null, 2)}\n` : renderReport(report, command.source, painter(io.colour)))
+  return report.summary.mismatch > 0 || report.summary.error > 0 ? EXIT.failed : EXIT.ok
+}
+
+/** Files left out of a folder are reported as warnings, so that the JSON says so too. */
+function withSkippedFiles(report: Report, skipped: SourceFiles['skipped']): void {
+  for (const s of skipped) report.warnings.push({ code: 'file-left-out', message: `left out: ${s.reason}`, file: s.path })
+}
+

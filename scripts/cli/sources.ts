@@ -1,0 +1,98 @@
+/**
+ * Reads what `scholium check` is pointed at into manuscript files with their SHA-256:
+ * - a .tex file: read alone (its siblings are not guessed at; point at the folder for a bundle);
+ * - a folder: every file under it, dotfiles and dot-folders left out, links leaving it refused;
+ * - an archive (.zip, .tar, .tar.gz, .tgz): through the server's own upload reader, with its limits.
+ * Folder files go through the same upload reader, so limits and path rules are written once.
+ * Files the upload reader would refuse by type (.aux, .log, …) are left out of a folder and
+ * listed in `skipped`, so that nothing disappears silently.
+ */
+import { lstat, readdir, readFile, realpath, stat } from 'node:fs/promises'
+import { basename, join, relative, sep } from 'node:path'
+import {
+  archiveKindOf, readUploadBundle, UPLOAD_LIMITS, UploadRefusedError, type BundleFile,
+} from '../../server/utils/upload-bundle'
+
+export interface SourceFiles {
+  files: BundleFile[]
+  /** Left out on purpose, with the reason (shown to the user and added to the report's warnings). */
+  skipped: { path: string, reason: string }[]
+  /** The file to read first when the source is a single .tex file. */
+  main?: string
+}
+
+/** Bad input: the message is for the user, the exit code is 2. */
+export class SourceProblem extends Error {
+  override readonly name = 'SourceProblem'
+}
+
+const OTHER_ARCHIVES = ['.tar.bz2', '.tar.xz', '.tbz2', '.txz', '.gz', '.bz2', '.xz', '.7z', '.rar', '.zst']
+
+/** Read `source` (a path as given on the command line). Throws SourceProblem on bad input. */
+export async function readSource(source: string): Promise<SourceFiles> {
+  const info = await stat(source).catch((error: NodeJS.ErrnoException) => {
+    throw new SourceProblem(error.code === 'ENOENT' ? `${source}: no such file or folder.` : `${source}: cannot be read (${error.code ?? error.message}).`)
+  })
+  try {
+    if (info.isDirectory()) return await readFolder(source)
+    if (!info.isFile()) throw new SourceProblem(`${source}: not a file or a folder.`)
+    const name = basename(source)
+    const lower = name.toLowerCase()
+    const data = await readFile(source)
+    if (archiveKindOf(name)) return { files: (await readUploadBundle([{ filename: name, data }])).files, skipped: [] }
+    if (OTHER_ARCHIVES.some(ext => lower.endsWith(ext))) throw new SourceProblem(`${source}: this kind of archive is not read; use .zip, .tar, .tar.gz or .tgz.`)
+    if (!lower.endsWith('.tex')) throw new SourceProblem(`${source}: not a .tex file, a folder or a .zip / .tar / .tar.gz / .tgz archive.`)
+    const { files } = await readUploadBundle([{ filename: name, data }])
+    return { files, skipped: [], main: files[0]?.path }
+  }
+  catch (error) {
+    if (error instanceof UploadRefusedError) throw new SourceProblem(`${source}: ${error.message} (${error.code})`)
+    throw error
+  }
+}
+
+async function readFolder(root: string): Promise<SourceFiles> {
+  const rootReal = await realpath(root)
+  const found: { path: string, data: Buffer }[] = []
+  const skipped: SourceFiles['skipped'] = []
+  const visited = new Set<string>([rootReal])
+  const walk = async (dir: string, prefix: string): Promise<void> => {
+    const entries = (await readdir(dir)).sort()
+    for (const name of entries) {
+      const path = prefix === '' ? name : `${prefix}/${name}`
+      if (name.startsWith('.')) continue // dotfiles and dot-folders (.git, .latexmkrc) are not part of the manuscript
+      const full = join(dir, name)
+      const link = await lstat(full)
+      let target = full
+      if (link.isSymbolicLink()) {
+        target = await realpath(full).catch(() => { throw new SourceProblem(`${path}: a link whose target does not exist.`) })
+        const inside = relative(rootReal, target)
+        if (inside === '' || inside.startsWith('..') || inside.split(sep)[0] === '..' || inside.startsWith(sep)) {
+          throw new SourceProblem(`${path}: a link that leaves the folder; copy the file in instead.`)
+        }
+      }
+      const info = await stat(target)
+      if (info.isDirectory()) {
+        const real = await realpath(target)
+        if (visited.has(real)) continue // a link back to a folder already read
+        visited.add(real)
+        await walk(target, path)
+      }
+      else if (info.isFile()) {
+        if (isAcceptedFile(name)) found.push({ path, data: await readFile(target) })
+        else skipped.push({ path, reason: 'not a manuscript file (its type is not among the accepted ones)' })
+      }
+      else skipped.push({ path, reason: 'not a regular file' })
+    }
+  }
+  await walk(root, '')
+  if (found.length === 0) throw new SourceProblem(`${root}: the folder has no manuscript files.`)
+  const { files } = await readUploadBundle(found.map(f => ({ filename: f.path, data: f.data })))
+  return { files, skipped }
+}
+
+function isAcceptedFile(name: string): boolean {
+  const lower = name.toLowerCase()
+  const dot = lower.lastIndexOf('.')
+  return dot > 0 && UPLOAD_LIMITS.allowedExtensions.includes(lower.slice(dot))
+}
