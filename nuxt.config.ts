@@ -1,3 +1,5 @@
+import { LOCAL_DEFAULTS } from './server/config/defaults'
+
 // Scholium's Nuxt configuration. Everything sits at the repo root (srcDir '.'),
 // so there is no app/ folder to wonder about.
 export default defineNuxtConfig({
@@ -29,18 +31,7 @@ export default defineNuxtConfig({
   // Runtime values come from NUXT_* environment variables at start-up; the
   // defaults here are the local fakes on loopback (see README "Configuration").
   runtimeConfig: {
-    databaseUrl: 'postgres://postgres@127.0.0.1:54329/scholium',
-    s3: {
-      endpoint: 'http://127.0.0.1:4569',
-      region: 'us-east-1',
-      bucket: 'scholium-sources',
-      accessKeyId: 'S3RVER',
-      secretAccessKey: 'S3RVER',
-      forcePathStyle: true,
-    },
-    smtp: { host: '127.0.0.1', port: 2525, secure: false, user: '', pass: '', from: 'Scholium <no-reply@scholium.local>' },
-    mailInboxUrl: 'http://127.0.0.1:2526',
-    publicBaseUrl: 'http://127.0.0.1:3000',
+    ...LOCAL_DEFAULTS,
     session: { password: '', maxAge: 60 * 60 * 24 * 7 },
   },
   typescript: {

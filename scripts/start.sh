@@ -55,6 +55,8 @@ export NUXT_PUBLIC_BASE_URL="${NUXT_PUBLIC_BASE_URL:-http://127.0.0.1:$APP_PORT}
 npx tsx scripts/migrate.ts
 ensure_build || die "the build failed"
 
+node --import tsx scripts/worker.ts &
+PIDS+=($!)
 log "serving on http://127.0.0.1:$APP_PORT"
 HOST=127.0.0.1 PORT="$APP_PORT" SCHOLIUM_SEED_DEMO=1 node .output/server/index.mjs &
 PIDS+=($!)

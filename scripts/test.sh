@@ -65,6 +65,9 @@ step build ensure_build
 if [ "$(cat "$RESULTS/step-build")" = pass ]; then
   HOST=127.0.0.1 PORT="$APP_PORT" SCHOLIUM_SEED_DEMO=1 node .output/server/index.mjs > "$RESULTS/app.log" 2>&1 &
   PIDS+=($!)
+  # A short lease, so the test that kills a worker sees the run picked up again within seconds.
+  SCHOLIUM_LEASE_SECONDS=3 node --import tsx scripts/worker.ts > "$RESULTS/worker.log" 2>&1 &
+  PIDS+=($!)
   ready=0
   for _ in $(seq 1 300); do
     curl -fsS "http://127.0.0.1:$APP_PORT/api/health" 2>/dev/null | grep -q '"demo":"ready"' && { ready=1; break; }

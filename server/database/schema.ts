@@ -92,6 +92,8 @@ export interface CheckRunsTable {
   queued_at: Timestamp
   started_at: Timestamp | null
   finished_at: Timestamp | null
+  lease_owner: string | null
+  lease_until: Timestamp | null
 }
 
 export interface ClaimsTable {

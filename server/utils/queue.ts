@@ -1,9 +1,6 @@
 import PgBoss from 'pg-boss'
 
-/** The queue every check run goes through; workers consume it (see DEVELOPERS.md). */
-export const CHECK_QUEUE = 'scholium-check-run'
-
-export interface CheckJobData { checkRunId: string }
+import { CHECK_JOB_OPTIONS, CHECK_QUEUE, type CheckJobData } from '../jobs/queue-names'
 
 let boss: Promise<PgBoss> | undefined
 
@@ -23,7 +20,7 @@ export function useQueue(): Promise<PgBoss> {
 /** Puts a check run on the queue. The run row already exists, so a lost message can be re-sent from it. */
 export async function enqueueCheckRun(checkRunId: string): Promise<void> {
   const queue = await useQueue()
-  await queue.send(CHECK_QUEUE, { checkRunId } satisfies CheckJobData, { retryLimit: 3, retryDelay: 5, expireInSeconds: 15 * 60 })
+  await queue.send(CHECK_QUEUE, { checkRunId } satisfies CheckJobData, CHECK_JOB_OPTIONS)
 }
 
 export async function stopQueue(): Promise<void> {

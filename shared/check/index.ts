@@ -25,6 +25,8 @@ export interface CheckOptions {
   fixed?: Partial<ConventionSet>
   /** Stops every claim still running (a run's time budget). */
   signal?: AbortSignal
+  /** A `performance.now()` time after which claims are no longer evaluated but reported as over budget. */
+  deadline?: number
   onProgress?: (done: number, total: number) => void
 }
 
@@ -33,7 +35,10 @@ export function evaluateClaims(read: ReadResult, options: CheckOptions & { memo?
   const memo: EngineMemo = options.memo ?? new Map()
   const evaluations: ClaimEvaluation[] = []
   read.claims.forEach((claim, i) => {
-    evaluations.push(evaluateClaim(claim, { fixed: options.fixed, memo, budget: { signal: options.signal } }))
+    const late = claim.status === 'ready' && options.deadline !== undefined && performance.now() > options.deadline
+    evaluations.push(late
+      ? { status: 'error', message: 'over budget: the run\'s time budget ran out before this claim', permutations: [] }
+      : evaluateClaim(claim, { fixed: options.fixed, memo, budget: { signal: options.signal } }))
     options.onProgress?.(i + 1, read.claims.length)
   })
   return evaluations

@@ -1,0 +1,76 @@
+/**
+ * A check worker process: consumes the check queue and runs each check in a worker
+ * thread. Start as many as you like, on as many machines as you like, against one
+ * database and one S3 bucket: leases make sure each run is written once.
+ *
+ *   node --import tsx scripts/worker.ts            # consume the queue until stopped
+ *   node --import tsx scripts/worker.ts --run <id> # process one run and exit (maintenance)
+ */
+import { hostname } from 'node:os'
+import { randomUUID } from 'node:crypto'
+import PgBoss from 'pg-boss'
+import { Piscina } from 'piscina'
+import { connectDatabase } from '../server/database/connect'
+import { createSourceStore } from '../server/storage/source-store'
+import { CHECK_JOB_OPTIONS, CHECK_QUEUE, type CheckJobData } from '../server/jobs/queue-names'
+import { listQueuedRuns, processCheckRun, releaseExpiredLeases, type CheckRunDeps } from '../server/jobs/check-run'
+import { workerSettingsFromEnv } from '../server/jobs/worker-settings'
+
+const settings = workerSettingsFromEnv()
+const workerId = `${hostname()}:${process.pid}:${randomUUID().slice(0, 8)}`
+const db = connectDatabase(settings.databaseUrl, settings.concurrency + 2)
+const pool = new Piscina({
+  filename: new URL('../server/jobs/check-thread.ts', import.meta.url).href,
+  minThreads: 1,
+  maxThreads: settings.concurrency,
+  // A run that needs more than this is refused rather than allowed to take the machine down.
+  resourceLimits: { maxOldGenerationSizeMb: 2048 },
+})
+const deps: CheckRunDeps = { db, store: createSourceStore(settings.s3), pool, workerId, leaseSeconds: settings.leaseSeconds, runBudgetMs: settings.runBudgetMs }
+
+const onlyRun = process.argv.indexOf('--run')
+if (onlyRun !== -1) {
+  const id = process.argv[onlyRun + 1]
+  if (!id) throw new Error('--run needs a check run id')
+  console.log(`[worker ${workerId}] run ${id}: ${await processCheckRun(deps, id)}`)
+  await pool.destroy()
+  await db.destroy()
+  process.exit(0)
+}
+
+const boss = new PgBoss({ connectionString: settings.databaseUrl, max: 3 })
+boss.on('error', error => console.error('[worker] queue error', error))
+await boss.start()
+await boss.createQueue(CHECK_QUEUE)
+
+for (let i = 0; i < settings.concurrency; i++) {
+  await boss.work<CheckJobData>(CHECK_QUEUE, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => {
+    if (!job) return
+    const outcome = await processCheckRun(deps, job.data.checkRunId)
+    if (outcome !== 'not-ours') console.log(`[worker] run ${job.data.checkRunId}: ${outcome}`)
+  })
+}
+
+async function resend(ids: string[]) {
+  for (const checkRunId of ids) await boss.send(CHECK_QUEUE, { checkRunId } satisfies CheckJobData, CHECK_JOB_OPTIONS)
+}
+// Messages lost while no worker ran (or by a failed send) are covered by re-sending what waits.
+await resend(await listQueuedRuns(db))
+const sweeper = setInterval(() => {
+  releaseExpiredLeases(db).then(resend).catch(error => console.error('[worker] sweep failed', error))
+}, Math.max(1000, settings.leaseSeconds * 500))
+
+console.log(`[worker ${workerId}] consuming ${CHECK_QUEUE} with ${settings.concurrency} thread(s)`)
+
+let stopping = false
+async function stop() {
+  if (stopping) return
+  stopping = true
+  clearInterval(sweeper)
+  await boss.stop({ graceful: true, timeout: 10_000 })
+  await pool.destroy()
+  await db.destroy()
+  process.exit(0)
+}
+process.on('SIGINT', stop)
+process.on('SIGTERM', stop)

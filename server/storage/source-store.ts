@@ -1,0 +1,62 @@
+/**
+ * Content-addressed source storage on S3, with its configuration passed in, so
+ * the web server (runtime config) and the worker process (environment) share it.
+ */
+import { DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3'
+
+export interface S3Settings {
+  endpoint: string
+  region: string
+  bucket: string
+  accessKeyId: string
+  secretAccessKey: string
+  forcePathStyle: boolean
+}
+
+export interface SourceStore {
+  put(bytes: Uint8Array, sha256: string): Promise<{ key: string, created: boolean }>
+  get(key: string): Promise<Uint8Array>
+  remove(key: string): Promise<void>
+}
+
+/** The key is derived from the SHA-256 alone. e.g. `sourceKey('ab12…')` is `sources/sha256/ab/ab12…`. */
+export function sourceKey(sha256: string): string {
+  return `sources/sha256/${sha256.slice(0, 2)}/${sha256}`
+}
+
+export function createSourceStore(settings: S3Settings): SourceStore {
+  const client = new S3Client({
+    endpoint: settings.endpoint || undefined,
+    region: settings.region,
+    forcePathStyle: settings.forcePathStyle,
+    credentials: { accessKeyId: settings.accessKeyId, secretAccessKey: settings.secretAccessKey },
+  })
+  const Bucket = settings.bucket
+  return {
+    async put(bytes, sha256) {
+      const key = sourceKey(sha256)
+      try {
+        await client.send(new HeadObjectCommand({ Bucket, Key: key }))
+        return { key, created: false }
+      }
+      catch (error) {
+        if (!isNotFound(error)) throw error
+      }
+      await client.send(new PutObjectCommand({ Bucket, Key: key, Body: bytes, ContentType: 'application/octet-stream' }))
+      return { key, created: true }
+    },
+    async get(key) {
+      const result = await client.send(new GetObjectCommand({ Bucket, Key: key }))
+      if (!result.Body) throw new Error('empty object body')
+      return result.Body.transformToByteArray()
+    },
+    async remove(key) {
+      await client.send(new DeleteObjectCommand({ Bucket, Key: key }))
+    },
+  }
+}
+
+function isNotFound(error: unknown): boolean {
+  const e = error as { name?: string, $metadata?: { httpStatusCode?: number } }
+  return e?.name === 'NotFound' || e?.name === 'NoSuchKey' || e?.$metadata?.httpStatusCode === 404
+}
