@@ -24,6 +24,9 @@ export interface Comparison {
   diff: ClaimDiff | null
 }
 
+/** Longer computed values are shown cut, with their number of terms. */
+const COMPUTED_LATEX_TERMS = 120
+
 /** Above this many pipe dreams, a mismatch found by invariants is reported without expanding. */
 const INVARIANTS_FIRST_ABOVE = 5000n
 
@@ -31,7 +34,7 @@ export function compareSides(lhs: Expr, rhs: Expr, env: EvaluationEnv): Comparis
   const early = invariantMismatch(lhs, rhs, env) ?? invariantMismatch(rhs, lhs, env, true)
   if (early) return early
 
-  const claimedCombination = writtenSchubertCombination(rhs, env)
+  const claimedCombination = writtenSchubertCombination(rhs, env, isSchubertProduct(lhs))
   if (claimedCombination) {
     const computed = schubertCombinationOfSide(lhs, env)
     return combinationComparison(computed, claimedCombination, 'schubert', schubertTermLatex)
@@ -51,13 +54,13 @@ export function compareSides(lhs: Expr, rhs: Expr, env: EvaluationEnv): Comparis
   const difference = polynomialDifference(computed, claimed)
   return {
     holds: difference.equal,
-    computed: computed.toLatex(),
+    computed: computed.toLatex(COMPUTED_LATEX_TERMS),
     diff: difference.equal
       ? null
       : limitDiff('monomial',
-          difference.missing.map(t => monomialTerm(t.x, t.y, t.coefficient)),
-          difference.extra.map(t => monomialTerm(t.x, t.y, t.coefficient)),
-          difference.wrongCoefficient.map(t => ({ term: monomialLatex(t.x, t.y) || '1', claimed: String(t.actual), computed: String(t.expected) }))),
+          difference.missing.length, difference.missing.slice(0, DIFF_LIMIT).map(t => monomialTerm(t.x, t.y, t.coefficient)),
+          difference.extra.length, difference.extra.slice(0, DIFF_LIMIT).map(t => monomialTerm(t.x, t.y, t.coefficient)),
+          difference.wrongCoefficient.length, difference.wrongCoefficient.slice(0, DIFF_LIMIT).map(t => ({ term: monomialLatex(t.x, t.y) || '1', claimed: String(t.actual), computed: String(t.expected) }))),
   }
 }
 
@@ -99,8 +102,16 @@ function isPlainPolynomial(expr: Expr): boolean {
   }
 }
 
-/** Σ c_w S_w as written (single Schubert polynomials with integer coefficients), or null. */
-function writtenSchubertCombination(expr: Expr, env: EvaluationEnv): SchubertCombination | null {
+/** S_u S_v written on the left: its right side is an expansion in the Schubert basis, even with one term. */
+function isSchubertProduct(expr: Expr): boolean {
+  return expr.type === 'multiply' && expr.factors.length === 2 && expr.factors.every(f => f.type === 'schubert' && f.variant === 'single')
+}
+
+/**
+ * Σ c_w S_w as written (single Schubert polynomials with integer coefficients), or null.
+ * `expansion`: the left side is a product, so even a lone S_w is an expansion to compare in the basis.
+ */
+function writtenSchubertCombination(expr: Expr, env: EvaluationEnv, expansion = false): SchubertCombination | null {
   const out: SchubertCombination = new Map()
   const addTerm = (term: Expr, sign: number): boolean => {
     if (term.type === 'negate') return addTerm(term.arg, -sign)
@@ -124,7 +135,7 @@ function writtenSchubertCombination(expr: Expr, env: EvaluationEnv): SchubertCom
   }
   const terms = expr.type === 'add' ? expr.terms : [expr]
   // A lone S_w is not a "combination" worth a basis diff; polynomials show more.
-  if (terms.length < 2 && !(expr.type === 'multiply')) return null
+  if (terms.length < 2 && !(expr.type === 'multiply') && !expansion) return null
   return terms.every(t => addTerm(t, 1)) ? out : null
 }
 
@@ -151,7 +162,11 @@ function combinationComparison(computed: Map<string, number>, claimed: Map<strin
   }
   for (const [key, c] of claimed) if (!computed.has(key)) extra.push({ term: latex(key), coefficient: String(c) })
   const holds = missing.length === 0 && extra.length === 0 && wrong.length === 0
-  return { holds, computed: combinationLatex(computed, latex), diff: holds ? null : limitDiff(basis, missing, extra, wrong) }
+  return {
+    holds,
+    computed: combinationLatex(computed, latex),
+    diff: holds ? null : limitDiff(basis, missing.length, missing.slice(0, DIFF_LIMIT), extra.length, extra.slice(0, DIFF_LIMIT), wrong.length, wrong.slice(0, DIFF_LIMIT)),
+  }
 }
 
 function schubertTermLatex(key: string): string {
@@ -185,14 +200,15 @@ function monomialTerm(x: readonly number[], y: readonly number[], coefficient: n
   return { term: monomialLatex(x, y) || '1', coefficient: String(coefficient) }
 }
 
-function limitDiff(basis: 'monomial' | 'schubert' | 'schur', missing: DiffTerm[], extra: DiffTerm[], wrong: DiffWrongCoefficient[]): ClaimDiff {
-  const cut = missing.length > DIFF_LIMIT || extra.length > DIFF_LIMIT || wrong.length > DIFF_LIMIT
+/** A diff whose lists hold at most DIFF_LIMIT entries (already cut by the caller, who knows the totals). */
+function limitDiff(basis: 'monomial' | 'schubert' | 'schur', missingCount: number, missing: DiffTerm[], extraCount: number, extra: DiffTerm[], wrongCount: number, wrong: DiffWrongCoefficient[]): ClaimDiff {
+  const cut = missingCount > missing.length || extraCount > extra.length || wrongCount > wrong.length
   return {
     basis,
-    missing: missing.slice(0, DIFF_LIMIT),
-    extra: extra.slice(0, DIFF_LIMIT),
-    wrongCoefficient: wrong.slice(0, DIFF_LIMIT),
-    ...(cut ? { truncated: { missing: missing.length, extra: extra.length, wrongCoefficient: wrong.length } } : {}),
+    missing,
+    extra,
+    wrongCoefficient: wrong,
+    ...(cut ? { truncated: { missing: missingCount, extra: extraCount, wrongCoefficient: wrongCount } } : {}),
   }
 }
 
