@@ -8,7 +8,7 @@
  * listed in `skipped`, so that nothing disappears silently.
  */
 import { lstat, readdir, readFile, realpath, stat } from 'node:fs/promises'
-import { basename, join, relative, sep } from 'node:path'
+import { basename, isAbsolute, join, relative, sep } from 'node:path'
 import {
   archiveKindOf, readUploadBundle, UPLOAD_LIMITS, UploadRefusedError, type BundleFile,
 } from '../../server/utils/upload-bundle'
@@ -67,7 +67,7 @@ async function readFolder(root: string): Promise<SourceFiles> {
       if (link.isSymbolicLink()) {
         target = await realpath(full).catch(() => { throw new SourceProblem(`${path}: a link whose target does not exist.`) })
         const inside = relative(rootReal, target)
-        if (inside === '' || inside.startsWith('..') || inside.split(sep)[0] === '..' || inside.startsWith(sep)) {
+        if (inside.split(sep)[0] === '..' || isAbsolute(inside)) {
           throw new SourceProblem(`${path}: a link that leaves the folder; copy the file in instead.`)
         }
       }
