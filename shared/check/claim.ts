@@ -23,7 +23,7 @@ export type ClaimEvaluation =
   | { status: 'unsupported' | 'error' | 'skipped', message: string, permutations: number[][] }
 
 /** Budget for one claim; the run's AbortSignal stops it from outside. */
-export const CLAIM_BUDGET: Required<Omit<Budget, 'signal'>> = { maxTerms: 400_000, maxSteps: 40_000_000 }
+export const CLAIM_BUDGET: Required<Omit<Budget, 'signal'>> = { maxTerms: 400_000, maxSteps: 40_000_000, maxMilliseconds: 10_000 }
 
 /**
  * Evaluates `claim` under each combination of its free convention axes.
@@ -46,7 +46,8 @@ export function evaluateClaim(claim: Claim, options: { fixed?: Partial<Conventio
   const variants: VariantResult[] = []
   try {
     for (const conventions of combinations(axes, fixed)) {
-      const meter = new BudgetMeter({ ...CLAIM_BUDGET, ...options.budget })
+      // Each convention variant gets its own meter: the time limit is per evaluation, not shared.
+    const meter = new BudgetMeter({ ...CLAIM_BUDGET, ...options.budget })
       const comparison = compareSides(claim.question.lhs, claim.question.rhs, { conventions, meter, memo })
       variants.push({ conventions, ...comparison })
     }

@@ -15,10 +15,15 @@ export interface Budget {
   maxSteps?: number
   /** Abort from outside; checked every few thousand steps. */
   signal?: AbortSignal
+  /**
+   * Wall-clock limit in milliseconds from the meter's creation, checked every few thousand
+   * steps. A busy thread never runs its timers, so a signal alone cannot stop synchronous work.
+   */
+  maxMilliseconds?: number
 }
 
 /** Defaults chosen so that a whole manuscript rechecks in about a second and nothing exhausts memory. */
-export const DEFAULT_BUDGET: Required<Omit<Budget, 'signal'>> = {
+export const DEFAULT_BUDGET: Required<Omit<Budget, 'signal' | 'maxMilliseconds'>> = {
   maxTerms: 2_000_000,
   maxSteps: 200_000_000,
 }
@@ -28,6 +33,7 @@ export class BudgetMeter {
   readonly maxTerms: number
   readonly maxSteps: number
   readonly signal: AbortSignal | undefined
+  readonly deadline: number
   steps = 0
   private nextSignalCheck = 4096
 
@@ -35,6 +41,7 @@ export class BudgetMeter {
     this.maxTerms = budget.maxTerms ?? DEFAULT_BUDGET.maxTerms
     this.maxSteps = budget.maxSteps ?? DEFAULT_BUDGET.maxSteps
     this.signal = budget.signal
+    this.deadline = budget.maxMilliseconds === undefined ? Infinity : performance.now() + budget.maxMilliseconds
     if (this.signal?.aborted) throw new BudgetExceededError('signal', 'computation aborted before it started')
   }
 
@@ -47,7 +54,13 @@ export class BudgetMeter {
     if (this.steps >= this.nextSignalCheck) {
       this.nextSignalCheck = this.steps + 4096
       if (this.signal?.aborted) throw new BudgetExceededError('signal', 'computation aborted')
+      if (performance.now() > this.deadline) throw new BudgetExceededError('time', 'computation too large: it ran out of time')
     }
+  }
+
+  /** Check the time limit now, between phases that do not count steps; e.g. `meter.checkTime()`. */
+  checkTime(): void {
+    if (performance.now() > this.deadline) throw new BudgetExceededError('time', 'computation too large: it ran out of time')
   }
 
   /** Check that a result of `count` terms is allowed; e.g. `meter.terms(map.size)`. */

@@ -42,8 +42,8 @@ export class InvalidArgumentError extends MathError {
 /** A computation exceeded its budget (terms, steps) or was aborted. */
 export class BudgetExceededError extends MathError {
   /** Which limit was hit. */
-  readonly limit: 'terms' | 'steps' | 'signal'
-  constructor(limit: 'terms' | 'steps' | 'signal', message: string) {
+  readonly limit: 'terms' | 'steps' | 'time' | 'signal'
+  constructor(limit: 'terms' | 'steps' | 'time' | 'signal', message: string) {
     super(limit === 'signal' ? 'ABORTED' : 'TOO_LARGE', message)
     this.limit = limit
   }

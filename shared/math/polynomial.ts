@@ -256,9 +256,7 @@ export class Polynomial {
 
   /** Terms in the canonical order (see module header). */
   termList(): Term[] {
-    const list = [...this.terms].map(([k, c]) => ({ ...decodeMonomial(k), coefficient: c }))
-    list.sort(compareTerms)
-    return list
+    return sortTerms([...this.terms].map(([k, c]) => ({ ...decodeMonomial(k), coefficient: c })))
   }
 
   /** Substitute each variable by a polynomial; `f(v)` returning undefined keeps v. */
@@ -361,18 +359,22 @@ export class Polynomial {
   }
 
   /** LaTeX in the canonical order; e.g. `x_{1}^{2}x_{2} - 2x_{1}y_{1} + 1`. */
-  toLatex(): string {
+  /**
+   * LaTeX in the canonical term order. With `maxTerms`, a longer polynomial is cut after that
+   * many terms and ends in `+ \cdots` with the number of terms, e.g. `toLatex(100)` for a report.
+   */
+  toLatex(maxTerms = Infinity): string {
     const list = this.termList()
     if (list.length === 0) return '0'
     let out = ''
-    list.forEach((t, idx) => {
+    list.slice(0, maxTerms).forEach((t, idx) => {
       const mono = monomialLatex(t.x, t.y)
       const abs = Math.abs(t.coefficient)
       const body = mono === '' ? String(abs) : abs === 1 ? mono : `${abs}${mono}`
       if (idx === 0) out += t.coefficient < 0 ? `-${body}` : body
       else out += t.coefficient < 0 ? ` - ${body}` : ` + ${body}`
     })
-    return out
+    return list.length > maxTerms ? `${out} + \\cdots \\;\\text{(${list.length} terms)}` : out
   }
 
   /** Plain-text rendering, e.g. `x1^2x2 + x1x3`. */
@@ -405,15 +407,21 @@ export function polynomialDifference(expected: Polynomial, actual: Polynomial): 
   const missing: Term[] = []
   const extra: Term[] = []
   const wrong: PolynomialDifference['wrongCoefficient'] = []
-  for (const t of expected.termList()) {
-    const a = actual.terms.get(encodeMonomial(t.x, t.y))
-    if (a === undefined) missing.push(t)
-    else if (a !== t.coefficient) wrong.push({ x: t.x, y: t.y, expected: t.coefficient, actual: a })
+  // Walk the maps by key and decode only what differs: the differences are usually few.
+  for (const [k, c] of expected.terms) {
+    const a = actual.terms.get(k)
+    if (a === undefined) missing.push({ ...decodeMonomial(k), coefficient: c })
+    else if (a !== c) wrong.push({ ...decodeMonomial(k), expected: c, actual: a })
   }
-  for (const t of actual.termList()) {
-    if (!expected.terms.has(encodeMonomial(t.x, t.y))) extra.push(t)
+  for (const [k, c] of actual.terms) {
+    if (!expected.terms.has(k)) extra.push({ ...decodeMonomial(k), coefficient: c })
   }
-  return { equal: missing.length === 0 && extra.length === 0 && wrong.length === 0, missing, extra, wrongCoefficient: wrong }
+  return {
+    equal: missing.length === 0 && extra.length === 0 && wrong.length === 0,
+    missing: sortTerms(missing),
+    extra: sortTerms(extra),
+    wrongCoefficient: sortTerms(wrong.map(w => ({ ...w, coefficient: w.expected }))).map(({ coefficient: _c, ...w }) => w),
+  }
 }
 
 /** Add c into acc[key], deleting the entry when it cancels. */
@@ -459,10 +467,26 @@ function compareVecDesc(a: readonly number[], b: readonly number[]): number {
   return 0
 }
 
-function compareTerms(a: Term, b: Term): number {
-  const d = sum(b.x) + sum(b.y) - sum(a.x) - sum(a.y)
-  if (d !== 0) return d
-  return compareVecDesc(a.x, b.x) || compareVecDesc(a.y, b.y)
+/**
+ * Canonical order. Each term gets a string key whose plain string order is the canonical
+ * order (degree descending, then exponent vectors descending), so sorting compares strings
+ * natively instead of walking vectors: tens of thousands of terms sort in milliseconds.
+ */
+function sortTerms<T extends Term>(terms: T[]): T[] {
+  let xWidth = 0
+  let yWidth = 0
+  for (const t of terms) {
+    xWidth = Math.max(xWidth, t.x.length)
+    yWidth = Math.max(yWidth, t.y.length)
+  }
+  const keyed = terms.map((t) => {
+    let key = String.fromCharCode(0xFFFE - sum(t.x) - sum(t.y))
+    for (let i = 0; i < xWidth; i++) key += String.fromCharCode(0xFFFE - (t.x[i] ?? 0))
+    for (let i = 0; i < yWidth; i++) key += String.fromCharCode(0xFFFE - (t.y[i] ?? 0))
+    return { t, key }
+  })
+  keyed.sort((a, b) => (a.key < b.key ? -1 : a.key > b.key ? 1 : 0))
+  return keyed.map(d => d.t)
 }
 
 /** Shorthand: product of linear factors such as ∏(x_i − y_j). */
