@@ -57,6 +57,9 @@ async function runCheck(command: CheckCommand, io: CliIo): Promise<number> {
     ...(main !== undefined ? { main } : {}),
   }, { fixed: command.fixed })
   withSkippedFiles(report, source.skipped)
+  if (source.main !== undefined && report.warnings.some(w => w.code === 'missing-file')) {
+    report.warnings.push({ code: 'single-file', message: `${command.source} was read alone; to include the files it inputs, check its folder instead.` })
+  }
   io.out(command.json ? `${JSON.stringify(report, null, 2)}\n` : renderReport(report, command.source, painter(io.colour)))
   return report.summary.mismatch > 0 || report.summary.error > 0 ? EXIT.failed : EXIT.ok
 }

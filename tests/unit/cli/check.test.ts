@@ -171,6 +171,12 @@ describe('folders and archives', () => {
     expect(run.code).toBe(2)
     expect(run.stderr).toMatch(/borrowed\.tex: a link that leaves the folder/)
   })
+  it('a single .tex file is read alone, and says so when it inputs other files', () => {
+    const r = report('check', join(FIXTURES, 'bundle', 'main.tex'))
+    expect(r.files.map((f: any) => f.path)).toEqual(['main.tex'])
+    expect(r.warnings.map((w: any) => w.code)).toEqual(['missing-file', 'single-file'])
+    expect(r.claims).toHaveLength(2)
+  })
   it('--main chooses the main file, and an unknown one is refused', () => {
     expect(report('check', join(FIXTURES, 'bundle'), '--main', 'main.tex').files[0]).toMatchObject({ path: 'main.tex', role: 'main' })
     const run = scholium('check', join(FIXTURES, 'bundle'), '--main', 'paper.tex')
