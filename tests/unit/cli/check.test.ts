@@ -73,6 +73,12 @@ describe('exit codes', () => {
     expect(run.stdout).toMatch(/5 verified, 1 mismatch/)
     expect(run.stdout).toMatch(/not prove/)
   })
+  it('1 when a claim could not be computed (an error verdict counts as a failure)', () => {
+    const run = scholium('check', join(FIXTURES, 'malformed.tex'))
+    expect(run.code).toBe(1)
+    expect(run.stdout).toMatch(/^\s+4\s+‼ error/m)
+    expect(run.stdout).toMatch(/1 verified, 0 mismatch, 1 error/)
+  })
   it('2 on a path that does not exist', () => {
     const run = scholium('check', join(scratch, 'no-such-paper.tex'))
     expect(run.code).toBe(2)
