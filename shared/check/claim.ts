@@ -41,7 +41,9 @@ export function evaluateClaim(claim: Claim, options: { fixed?: Partial<Conventio
     const axis = axisOfConvention(id)
     if (axis) (fixed as Record<string, string>)[axis] = id
   }
-  const axes = relevantAxes(claim.question.lhs, claim.question.rhs).filter(axis => fixed[axis] === undefined)
+  // Fixed axes are varied too: the verdict is judged under the fixed choice, but a failing
+  // claim should still say under which other conventions it would hold.
+  const axes = relevantAxes(claim.question.lhs, claim.question.rhs)
   const memo = options.memo ?? new Map()
   const variants: VariantResult[] = []
   try {
@@ -71,7 +73,7 @@ function describeFailure(error: unknown): { status: 'unsupported' | 'error', mes
   return { status: 'error', message: `internal error: ${(error as Error)?.message ?? String(error)}` }
 }
 
-/** Every convention set over `axes`, the other axes taken from `fixed` or the reference. Reference first. */
+/** Every convention set over `axes`, the other axes taken from `fixed` or the reference. */
 function combinations(axes: ConventionAxis[], fixed: Partial<ConventionSet>): ConventionSet[] {
   let sets: ConventionSet[] = [{ ...REFERENCE_CONVENTIONS, ...fixed }]
   for (const axis of axes) {

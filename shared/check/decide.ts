@@ -19,6 +19,8 @@ export function inferConventions(evaluations: readonly ClaimEvaluation[], fixed:
     const holding = ev.variants.filter(v => v.holds)
     if (holding.length === 0) continue
     for (const axis of ev.axes) {
+      // A claim whose own tag (or the run) fixes the axis says nothing about the paper's habit.
+      if (ev.fixed[axis] !== undefined) continue
       const choices = new Set(holding.map(v => v.conventions[axis]))
       if (choices.size === 1) {
         const id = [...choices][0] as ConventionId

@@ -101,10 +101,13 @@ describe('w against w⁻¹', () => {
     // The difference is against S_{4123} = x_1^3, what S_2341 means in this paper.
     expect(report.claims[3]!.diff).toEqual({ basis: 'monomial', missing: [{ term: 'x_{1}^{3}', coefficient: '1' }], extra: [{ term: 'x_{1}x_{2}x_{3}', coefficient: '1' }], wrongCoefficient: [] })
   })
-  it('fixed perm-w turns it round: four mismatches, with no claim to another convention', () => {
+  it('fixed perm-w turns it round: four mismatches, each still saying it would hold under perm-inverse', () => {
     const report = checkManuscript({ files: { 'main.tex': paper(...lines) } }, { fixed: { indexing: 'perm-w' } })
     expect(verdicts(report.claims)).toEqual([[3, 'mismatch'], [4, 'mismatch'], [5, 'mismatch'], [6, 'verified'], [7, 'mismatch']])
-    expect(report.claims.every(c => c.holdsUnder.length === 0)).toBe(true)
+    expect(report.claims.map(c => c.holdsUnder)).toEqual([['perm-inverse'], ['perm-inverse'], ['perm-inverse'], [], ['perm-inverse']])
+    // The axis was fixed from outside, so no claim "breaks the paper's convention" and nothing is inferred on it.
+    expect(report.claims.every(c => c.breaksPaperConvention === undefined)).toBe(true)
+    expect(report.conventions.inferred.indexing).toBeUndefined()
   })
 })
 
