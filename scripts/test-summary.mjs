@@ -2,7 +2,7 @@
 import { readdirSync, readFileSync } from 'node:fs'
 import { join } from 'node:path'
 
-const [results, seconds] = process.argv.slice(2)
+const [results, seconds, projects = 'unit server e2e'] = process.argv.slice(2)
 let passed = 0
 let failed = 0
 let skipped = 0
@@ -24,7 +24,7 @@ for (const name of readdirSync(results).sort()) {
     if (report.numFailedTests > 0 || brokenFiles.length > 0) failures.push(name.slice(7, -5))
   }
 }
-for (const project of ['unit', 'server', 'e2e']) {
+for (const project of projects.split(/\s+/).filter(Boolean)) {
   // A project that never reported (crashed, or never started) is a failure, not silence.
   if (!readdirSync(results).includes(`vitest-${project}.json`)) { failed++; failures.push(`${project} (no report)`) }
 }

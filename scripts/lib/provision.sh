@@ -81,12 +81,14 @@ wait_for_port() {
   done
 }
 
-# Build the app unless .output is newer than every source file.
+# Build the app unless its output is newer than every source file.
+# SCHOLIUM_BUILD_DIR / SCHOLIUM_OUTPUT_DIR (used by nuxt.config.ts) move the build elsewhere.
 ensure_build() {
   cd "$REPO_ROOT"
-  if [ -f .output/server/index.mjs ] && [ -z "$(find app.vue error.vue nuxt.config.ts tailwind.config.ts package-lock.json \
-      assets components composables layouts middleware pages plugins public server shared stores \
-      -newer .output/server/index.mjs -print -quit 2>/dev/null)" ]; then
+  local out="${SCHOLIUM_OUTPUT_DIR:-.output}"
+  if [ -f "$out/server/index.mjs" ] && [ -z "$(find app.vue error.vue nuxt.config.ts tailwind.config.ts package-lock.json \
+      assets components composables layouts middleware pages plugins public server shared stores utils \
+      -newer "$out/server/index.mjs" -print -quit 2>/dev/null)" ]; then
     return 0
   fi
   log "building the app (nuxt build)"
