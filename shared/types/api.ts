@@ -29,6 +29,12 @@ export type ApiErrorCode =
   | 'storage-unavailable'
   | 'mail-inbox-unavailable'
   | 'conflict'
+  | 'invitation-expired'
+  | 'invitation-used'
+  | 'invitation-other-address'
+  | 'already-member'
+  | 'owner-not-removable'
+  | 'mail-unavailable'
 
 export interface ApiErrorData {
   code: ApiErrorCode
@@ -120,6 +126,24 @@ export interface MemberView {
   displayName: string
   email: string
   role: ManuscriptRole
+}
+
+/** What an invitation link shows before it is accepted (to whoever holds the link). */
+export interface InvitationPreview {
+  kind: 'coauthor'
+  manuscriptTitle: string
+  invitedBy: string
+  /** The address the invitation was sent to; only an account with this address may accept it. */
+  email: string
+  expiresAt: string
+}
+
+/** An invitation the owner has sent and that is neither used nor expired. */
+export interface PendingInvitationView {
+  id: string
+  email: string
+  createdAt: string
+  expiresAt: string
 }
 
 export interface SubmissionSummaryView {
