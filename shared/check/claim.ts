@@ -83,34 +83,38 @@ function combinations(axes: ConventionAxis[], fixed: Partial<ConventionSet>): Co
   return sets
 }
 
+/** Calls `visit` on every node of the expressions, parents before children. */
+function walk(exprs: readonly Expr[], visit: (e: Expr) => void): void {
+  for (const e of exprs) {
+    visit(e)
+    switch (e.type) {
+      case 'add': walk(e.terms, visit); break
+      case 'multiply': walk(e.factors, visit); break
+      case 'negate': case 'dividedDifference': case 'evaluateAtOnes': walk([e.arg], visit); break
+      case 'power': walk([e.base], visit); break
+      case 'determinant': walk(e.rows.flat(), visit); break
+      default: break
+    }
+  }
+}
+
 /** Which convention axes can change the value of these expressions. */
 export function relevantAxes(...exprs: Expr[]): ConventionAxis[] {
   const found = new Set<ConventionAxis>()
-  const visit = (e: Expr): void => {
+  walk(exprs, (e) => {
     switch (e.type) {
-      case 'schubert':
+      case 'schubert': case 'grothendieck':
         found.add('indexing')
         if (e.variant === 'double') found.add('doubleSign')
-        return
-      case 'grothendieck':
-        found.add('indexing')
-        found.add('beta')
-        if (e.variant === 'double') found.add('doubleSign')
-        return
-      case 'stanley': found.add('indexing'); found.add('partition'); return
-      case 'symmetric': if (e.family === 'schur') found.add('partition'); return
-      case 'littlewoodRichardson': case 'kostka': found.add('partition'); return
-      case 'length': case 'count': case 'structureConstant': found.add('indexing'); return
-      case 'add': e.terms.forEach(visit); return
-      case 'multiply': e.factors.forEach(visit); return
-      case 'negate': visit(e.arg); return
-      case 'power': visit(e.base); return
-      case 'dividedDifference': case 'evaluateAtOnes': visit(e.arg); return
-      case 'determinant': e.rows.flat().forEach(visit); return
-      default: return
+        if (e.type === 'grothendieck') found.add('beta')
+        break
+      case 'stanley': found.add('indexing'); found.add('partition'); break
+      case 'symmetric': if (e.family === 'schur') found.add('partition'); break
+      case 'littlewoodRichardson': case 'kostka': found.add('partition'); break
+      case 'length': case 'count': case 'structureConstant': found.add('indexing'); break
+      default: break
     }
-  }
-  exprs.forEach(visit)
+  })
   return (Object.keys(CONVENTION_AXES) as ConventionAxis[]).filter(axis => found.has(axis))
 }
 
@@ -124,19 +128,12 @@ export function permutationsIn(...exprs: Expr[]): number[][] {
     }
     catch { /* malformed permutations are reported by the evaluation itself */ }
   }
-  const visit = (e: Expr): void => {
+  walk(exprs, (e) => {
     switch (e.type) {
-      case 'schubert': case 'grothendieck': case 'stanley': case 'length': case 'count': add(e.perm); return
-      case 'structureConstant': add(e.u); add(e.v); add(e.w); return
-      case 'add': e.terms.forEach(visit); return
-      case 'multiply': e.factors.forEach(visit); return
-      case 'negate': visit(e.arg); return
-      case 'power': visit(e.base); return
-      case 'dividedDifference': case 'evaluateAtOnes': visit(e.arg); return
-      case 'determinant': e.rows.flat().forEach(visit); return
-      default: return
+      case 'schubert': case 'grothendieck': case 'stanley': case 'length': case 'count': add(e.perm); break
+      case 'structureConstant': add(e.u); add(e.v); add(e.w); break
+      default: break
     }
-  }
-  exprs.forEach(visit)
+  })
   return [...seen.values()]
 }
