@@ -458,15 +458,6 @@ function sum(v: readonly number[]): number {
   return s
 }
 
-function compareVecDesc(a: readonly number[], b: readonly number[]): number {
-  const n = Math.max(a.length, b.length)
-  for (let i = 0; i < n; i++) {
-    const d = (b[i] ?? 0) - (a[i] ?? 0)
-    if (d !== 0) return d
-  }
-  return 0
-}
-
 /**
  * Canonical order. Each term gets a string key whose plain string order is the canonical
  * order (degree descending, then exponent vectors descending), so sorting compares strings
