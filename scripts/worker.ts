@@ -15,6 +15,8 @@ import { createSourceStore } from '../server/storage/source-store'
 import { CHECK_JOB_OPTIONS, CHECK_QUEUE, type CheckJobData } from '../server/jobs/queue-names'
 import { listQueuedRuns, processCheckRun, releaseExpiredLeases, type CheckRunDeps } from '../server/jobs/check-run'
 import { workerSettingsFromEnv } from '../server/jobs/worker-settings'
+import { createMailSender, smtpSettingsFromEnv } from '../server/mail/transport'
+import { checkMailSettingsFromEnv, mailIfLongRun } from '../server/mail/check-finished'
 
 const settings = workerSettingsFromEnv()
 const workerId = `${hostname()}:${process.pid}:${randomUUID().slice(0, 8)}`
@@ -26,7 +28,12 @@ const pool = new Piscina({
   // A run that needs more than this is refused rather than allowed to take the machine down.
   resourceLimits: { maxOldGenerationSizeMb: 2048 },
 })
-const deps: CheckRunDeps = { db, store: createSourceStore(settings.s3), pool, workerId, leaseSeconds: settings.leaseSeconds, runBudgetMs: settings.runBudgetMs }
+// The "check finished" mail for long runs, through the same SMTP relay as the web server.
+const checkMail = checkMailSettingsFromEnv(createMailSender(smtpSettingsFromEnv()))
+const afterFinished = async (checkRunId: string) => {
+  if (await mailIfLongRun(db, checkMail, checkRunId) === 'sent') console.log(`[worker] run ${checkRunId}: mailed the requester`)
+}
+const deps: CheckRunDeps = { db, store: createSourceStore(settings.s3), pool, workerId, leaseSeconds: settings.leaseSeconds, runBudgetMs: settings.runBudgetMs, afterFinished }
 
 const onlyRun = process.argv.indexOf('--run')
 if (onlyRun !== -1) {

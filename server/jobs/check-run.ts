@@ -24,6 +24,8 @@ export interface CheckRunDeps {
   leaseSeconds: number
   /** Time budget of one run; the thread is aborted outright at twice this. */
   runBudgetMs: number
+  /** Called once a run's results are written (the "check finished" mail); its failure is only logged. */
+  afterFinished?: (checkRunId: string) => Promise<unknown>
 }
 
 export type CheckRunOutcome = 'finished' | 'failed' | 'not-ours'
@@ -90,6 +92,7 @@ export async function processCheckRun(deps: CheckRunDeps, checkRunId: string): P
       }).where('id', '=', checkRunId).execute()
       return true
     })
+    if (written) await runAfterFinished(deps, checkRunId)
     return written ? 'finished' : 'not-ours'
   }
   catch (error) {
@@ -108,6 +111,17 @@ export async function processCheckRun(deps: CheckRunDeps, checkRunId: string): P
   }
   finally {
     clearInterval(heartbeat)
+  }
+}
+
+// The run is already finished and committed: nothing here may turn it into a failure.
+async function runAfterFinished(deps: CheckRunDeps, checkRunId: string): Promise<void> {
+  if (!deps.afterFinished) return
+  try {
+    await deps.afterFinished(checkRunId)
+  }
+  catch (error) {
+    console.error(`[worker] run ${checkRunId}: after-finish step failed`, error)
   }
 }
 
