@@ -1,7 +1,5 @@
 import { z } from 'zod'
-import { appendAudit } from '../../../repositories/audit'
-import { insertCheckRun } from '../../../repositories/check-runs'
-import { listRevisions } from '../../../repositories/revisions'
+import { setManuscriptConventions } from '../../../services/conventions'
 
 const Params = z.object({ id: z.string() })
 const Body = z.object({ conventions: ConventionChoices })
@@ -11,13 +9,6 @@ export default defineEventHandler(async (event) => {
   const { id } = await routeParamsAs(event, Params)
   const grant = await authorize(event, { manuscript: id })
   const { conventions } = await readBodyAs(event, Body)
-  const db = useDb()
-  const runId = await db.transaction().execute(async (trx) => {
-    await trx.updateTable('manuscripts').set({ conventions: JSON.stringify(conventions), updated_at: new Date() }).where('id', '=', id).execute()
-    await appendAudit(trx, { actorId: grant.user.id, action: 'manuscript.conventions-set', subjectType: 'manuscript', subjectId: id, details: { before: grant.conventions, after: conventions } })
-    const [newest] = await listRevisions(trx, id)
-    return newest ? (await insertCheckRun(trx, { revisionId: newest.id, requestedBy: grant.user.id, conventions })).id : null
-  })
-  if (runId) await enqueueCheckRun(runId)
-  return { conventions, checkRunId: runId }
+  const result = await setManuscriptConventions(useDb(), { manuscriptId: id, actorId: grant.user.id, conventions: conventions as Record<string, string> })
+  return { conventions: result.conventions, checkRunId: result.checkRunId }
 })
