@@ -1,3 +1,4 @@
+import { sql } from 'kysely'
 import type { Db } from '../database/connect'
 import type { SubmissionSummaryView } from '#shared/types/api'
 
@@ -38,6 +39,8 @@ export async function listRefereesForSubmissions(db: Db, submissionIds: string[]
     .innerJoin('users as u', 'u.id', 'a.referee_id')
     .select(['a.id', 'a.submission_id', 'a.released_at', 'u.display_name', 'u.email'])
     .where('a.submission_id', 'in', submissionIds)
+    // In order of assignment, so the editor's list matches "Referee 1", "Referee 2" as the authors see them.
+    .orderBy('a.created_at').orderBy('a.id')
     .execute()
 }
 
@@ -67,4 +70,76 @@ export async function setRefereeNote(db: Db, assignmentId: string, note: string)
 
 export async function releaseRefereeNotes(db: Db, assignmentId: string): Promise<void> {
   await db.updateTable('referee_assignments').set({ released_at: new Date() }).where('id', '=', assignmentId).execute()
+}
+
+/** One page of a venue's submissions, filtered and sorted in the database (see `VenueSubmissionsQuery`). */
+export async function pageSubmissionsForVenue(db: Db, venueId: string, query: VenueSubmissionsQuery) {
+  const filtered = db.selectFrom('submissions as s')
+    .innerJoin('revisions as r', 'r.id', 's.revision_id')
+    .innerJoin('manuscripts as m', 'm.id', 'r.manuscript_id')
+    .innerJoin('users as u', 'u.id', 's.submitted_by')
+    // The newest finished run gives the verdict counts; a queued re-check has none yet.
+    .leftJoinLateral(
+      eb => eb.selectFrom('check_runs as c').select('c.summary')
+        .whereRef('c.revision_id', '=', 'r.id').where('c.status', '=', 'finished')
+        .orderBy('c.finished_at', 'desc').limit(1).as('lr'),
+      join => join.onTrue(),
+    )
+    .where('s.venue_id', '=', venueId)
+    .$if(query.status !== undefined, qb => qb.where('s.status', '=', query.status!))
+    .$if(query.q !== undefined && query.q !== '', qb => qb.where(eb => eb.or([
+      eb('m.title', 'ilike', likePattern(query.q!)),
+      eb('u.display_name', 'ilike', likePattern(query.q!)),
+    ])))
+  const { total } = await filtered.select(eb => eb.fn.countAll<number>().as('total')).executeTakeFirstOrThrow()
+  const order = query.order === 'asc' ? sql`asc` : sql`desc`
+  const sortColumn = query.sort === 'date'
+    ? sql`s.created_at`
+    : query.sort === 'title'
+      ? sql`lower(m.title)`
+      : query.sort === 'status'
+        ? sql`s.status`
+        // Runs that have not finished sort below every count.
+        : sql`coalesce((lr.summary -> 'summary' ->> ${sql.lit(query.sort)})::int, -1)`
+  const rows = await filtered
+    .select(['s.id', 's.revision_id', 's.status', 's.created_at', 'r.number', 'm.title', 'u.display_name as submittedBy', 'lr.summary as finishedSummary'])
+    .orderBy(sql`${sortColumn} ${order}`)
+    .orderBy('s.created_at', 'desc').orderBy('s.id')
+    .limit(query.pageSize).offset((query.page - 1) * query.pageSize)
+    .execute()
+  return { total: Number(total), rows }
+}
+
+export interface VenueSubmissionsQuery {
+  page: number
+  pageSize: number
+  sort: 'date' | 'title' | 'status' | 'verified' | 'mismatch' | 'unsupported' | 'error'
+  order: 'asc' | 'desc'
+  q?: string
+  status?: 'submitted' | 'in-review' | 'decided' | 'withdrawn'
+}
+
+/** `%text%` for ILIKE, with the pattern characters in the text taken literally. */
+function likePattern(text: string): string {
+  return `%${text.replace(/[\\%_]/g, c => `\\${c}`)}%`
+}
+
+/** A submission as its venue's editor sees it; undefined when the user edits no venue it was sent to. */
+export async function findSubmissionForEditor(db: Db, submissionId: string, editorId: string) {
+  return db.selectFrom('submissions as s')
+    .innerJoin('venue_editors as ve', 've.venue_id', 's.venue_id')
+    .innerJoin('venues as v', 'v.id', 's.venue_id')
+    .innerJoin('revisions as r', 'r.id', 's.revision_id')
+    .innerJoin('manuscripts as m', 'm.id', 'r.manuscript_id')
+    .innerJoin('users as u', 'u.id', 's.submitted_by')
+    .select(['s.id', 's.venue_id', 's.revision_id', 's.status', 's.created_at', 'v.name as venueName', 'r.number', 'm.id as manuscriptId', 'm.title', 'u.display_name as submittedBy'])
+    .where('s.id', '=', submissionId)
+    .where('ve.user_id', '=', editorId)
+    .executeTakeFirst()
+}
+
+/** Moves a submission from 'submitted' to 'in-review' (the first referee accepted); other states stay. */
+export async function markSubmissionInReview(db: Db, submissionId: string): Promise<void> {
+  await db.updateTable('submissions').set({ status: 'in-review', updated_at: new Date() })
+    .where('id', '=', submissionId).where('status', '=', 'submitted').execute()
 }

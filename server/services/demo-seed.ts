@@ -9,7 +9,10 @@ import { findUserByEmail, insertUser } from '../repositories/users'
 import { addManuscriptMember, findManuscriptByTitleForOwner, insertManuscript } from '../repositories/manuscripts'
 import { addVenueEditor, upsertVenue } from '../repositories/venues'
 import { listRevisions } from '../repositories/revisions'
-import { insertRefereeAssignment, insertSubmission } from '../repositories/submissions'
+import { insertRefereeAssignment, insertSubmission, setRefereeNote } from '../repositories/submissions'
+import { insertRefereeClaimNote, markAssignmentReleased } from '../repositories/referee-notes'
+import { claimContentKey } from '../repositories/claims'
+import { readManuscript } from '../../shared/latex'
 import { appendAudit } from '../repositories/audit'
 import { createRevision, type UploadedPart } from './revisions'
 import { DEMO_PASSWORD, DEMO_PEOPLE } from './demo-people'
@@ -46,7 +49,35 @@ export async function seedDemo(db: Db, readAssets: DemoAssets): Promise<void> {
   const [submitted] = await listRevisions(db, tilings)
   if (submitted) {
     const submission = await insertSubmission(db, { revisionId: submitted.id, venueId: ledgerfield.id, submittedBy: ids.soloAuthor })
-    await insertRefereeAssignment(db, { submissionId: submission.id, refereeId: ids.referee, invitedBy: ids.editor })
+    const assignment = await insertRefereeAssignment(db, { submissionId: submission.id, refereeId: ids.referee, invitedBy: ids.editor })
+    await seedReleasedRefereeNotes(db, { assignmentId: assignment.id, submissionId: submission.id, manuscriptId: tilings, refereeId: ids.referee, editorId: ids.editor }, readAssets)
+  }
+}
+
+/**
+ * The referee's notes on the tilings manuscript, released by the editor: an overall
+ * note and a note on the claim S_213(x;y) = x_1 - y_1 (line 28), which breaks the paper's
+ * own x_i + y_j convention. The claim is found by reading the demo source, since its
+ * check may not have run yet; the note keeps the claim's content key. Each step is
+ * done only if missing, so a second start changes nothing.
+ */
+async function seedReleasedRefereeNotes(db: Db, at: { assignmentId: string, submissionId: string, manuscriptId: string, refereeId: string, editorId: string }, readAssets: DemoAssets): Promise<void> {
+  const assignment = await db.selectFrom('referee_assignments').select(['overall_note', 'released_at']).where('id', '=', at.assignmentId).executeTakeFirstOrThrow()
+  if (assignment.released_at) return
+  if (!assignment.overall_note) {
+    await setRefereeNote(db, at.assignmentId, 'The examples are clearly laid out and nearly all of them check. One simple transposition is written with the opposite sign convention to the rest of the note; please make it agree with Section 1.')
+  }
+  const hasClaimNote = await db.selectFrom('claim_comments').select('id').where('referee_assignment_id', '=', at.assignmentId).executeTakeFirst()
+  if (!hasClaimNote) {
+    const parts = await readAssets('demo:bumpless-tilings:rev1')
+    const read = readManuscript({ files: Object.fromEntries(parts.map(p => [p.filename, new Uint8Array(p.data)])) })
+    const claim = read.claims.find(c => c.source.replace(/\s+/g, '') === '\\dS{213}=x_1-y_1')
+    if (claim) {
+      await insertRefereeClaimNote(db, { manuscriptId: at.manuscriptId, contentKey: claimContentKey(claim), claimId: null, authorId: at.refereeId, assignmentId: at.assignmentId, body: 'With factors x_i + y_j, as in Section 1, this should read x_1 + y_1.' })
+    }
+  }
+  if (await markAssignmentReleased(db, at.assignmentId, new Date())) {
+    await appendAudit(db, { actorId: at.editorId, action: 'review.released', subjectType: 'submission', subjectId: at.submissionId, details: { assignmentId: at.assignmentId, referee: 'Referee 1', demo: true } })
   }
 }
 

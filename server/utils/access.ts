@@ -2,7 +2,7 @@ import type { H3Event } from 'h3'
 import type { ManuscriptRole, RevisionViewer, SessionUser } from '#shared/types/api'
 import { findManuscriptMembership, findRevisionAccess } from '../repositories/manuscripts'
 import { isVenueEditor } from '../repositories/venues'
-import { listAssignmentsForReferee } from '../repositories/submissions'
+import { findSubmissionForEditor, listAssignmentsForReferee } from '../repositories/submissions'
 
 /**
  * What a route needs from its caller. Every route that is not public goes
@@ -19,16 +19,19 @@ export type Requirement =
   | { venueEditor: string }
   | { refereeAssignment: string }
   | { revision: string }
+  | { submissionEditor: string }
 
 export interface ManuscriptGrant { user: SessionUser, manuscriptId: string, role: ManuscriptRole, isOwner: boolean, title: string, conventions: Record<string, string> }
 export interface RevisionGrant { user: SessionUser, revisionId: string, revisionNumber: number, manuscriptId: string, title: string, conventions: Record<string, string>, viewer: RevisionViewer }
+export interface SubmissionGrant { user: SessionUser, submissionId: string, venueId: string, venueName: string, revisionId: string, revisionNumber: number, manuscriptId: string, title: string, status: string, submittedBy: string, createdAt: Date }
 export interface AssignmentGrant { user: SessionUser, assignmentId: string, submissionId: string, revisionId: string, manuscriptId: string, title: string, venueName: string, revisionNumber: number, overallNote: string, released: boolean }
 
 export async function authorize(event: H3Event, need: { manuscript: string, owner?: boolean }): Promise<ManuscriptGrant>
 export async function authorize(event: H3Event, need: { refereeAssignment: string }): Promise<AssignmentGrant>
 export async function authorize(event: H3Event, need: { revision: string }): Promise<RevisionGrant>
+export async function authorize(event: H3Event, need: { submissionEditor: string }): Promise<SubmissionGrant>
 export async function authorize(event: H3Event, need: Requirement): Promise<{ user: SessionUser }>
-export async function authorize(event: H3Event, need: Requirement): Promise<{ user: SessionUser } | ManuscriptGrant | AssignmentGrant | RevisionGrant> {
+export async function authorize(event: H3Event, need: Requirement): Promise<{ user: SessionUser } | ManuscriptGrant | AssignmentGrant | RevisionGrant | SubmissionGrant> {
   const session = await getUserSession(event)
   const user = session.user as SessionUser | undefined
   if (!user) fail(401, 'not-signed-in', 'Please sign in')
@@ -49,6 +52,12 @@ export async function authorize(event: H3Event, need: Requirement): Promise<{ us
   if ('venueEditor' in need) {
     if (!isUuid(need.venueEditor) || !(await isVenueEditor(db, need.venueEditor, user.id))) fail(404, 'not-found', 'No such venue')
     return { user }
+  }
+  if ('submissionEditor' in need) {
+    // Only an editor of the venue it was sent to; everyone else (authors and referees included) gets 404.
+    const s = isUuid(need.submissionEditor) ? await findSubmissionForEditor(db, need.submissionEditor, user.id) : undefined
+    if (!s) fail(404, 'not-found', 'No such submission')
+    return { user, submissionId: s.id, venueId: s.venue_id, venueName: s.venueName, revisionId: s.revision_id, revisionNumber: s.number, manuscriptId: s.manuscriptId, title: s.title, status: s.status, submittedBy: s.submittedBy, createdAt: s.created_at }
   }
   if ('revision' in need) {
     const access = isUuid(need.revision) ? await findRevisionAccess(db, need.revision, user.id) : undefined
