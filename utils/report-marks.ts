@@ -1,36 +1,30 @@
 /**
  * The marks the report puts beside a line of source, one per claim state.
  *
- * Conventions: a mark is never colour alone — each has a glyph, a word and a colour;
+ * Conventions: a mark is never colour alone — each has a glyph, a word (both from
+ * shared/check/marks.ts, so the command line shows the same) and a colour;
  * `MARK_ORDER` lists them worst first, and a line with several claims shows its worst one.
  * "otherConvention" is a mismatch that holds under another convention (non-empty `holdsUnder`).
  */
 import type { ReportClaim } from '#shared/types/report'
 import { CONVENTION_AXES, axisOfConvention, type ConventionId } from '#shared/types/conventions'
+import { LINE_MARKS, MARK_ORDER, markOf, worstMark, type LineMark } from '#shared/check/marks'
 
-export type LineMark = 'mismatch' | 'otherConvention' | 'error' | 'unsupported' | 'verified'
+export { MARK_ORDER, markOf, worstMark, type LineMark }
 
-export const MARK_ORDER: readonly LineMark[] = ['mismatch', 'otherConvention', 'error', 'unsupported', 'verified']
-
-/** Glyph, word and Tailwind classes of each mark; e.g. `MARKS.mismatch.glyph === '≠'`. */
-export const MARKS: Record<LineMark, { glyph: string, word: string, tone: string }> = {
-  mismatch: { glyph: '≠', word: 'disagrees', tone: 'bg-madder-500 text-vellum-50 border-madder-700' },
-  otherConvention: { glyph: '⇄', word: 'holds under another convention', tone: 'bg-ochre-100 text-ochre-700 border-ochre-500' },
-  error: { glyph: '!', word: 'could not be computed', tone: 'bg-slateblue-100 text-slateblue-700 border-slateblue-500' },
-  unsupported: { glyph: '?', word: 'not checkable', tone: 'bg-vellum-100 text-ink-400 border-vellum-300 border-dashed' },
-  verified: { glyph: '=', word: 'agrees', tone: 'bg-verdigris-100 text-verdigris-700 border-verdigris-500/50' },
+const TONES: Record<LineMark, string> = {
+  mismatch: 'bg-madder-500 text-vellum-50 border-madder-700',
+  otherConvention: 'bg-ochre-100 text-ochre-700 border-ochre-500',
+  error: 'bg-slateblue-100 text-slateblue-700 border-slateblue-500',
+  unsupported: 'bg-vellum-100 text-ink-400 border-vellum-300 border-dashed',
+  skipped: 'bg-vellum-100 text-ink-400 border-vellum-300 border-dashed',
+  verified: 'bg-verdigris-100 text-verdigris-700 border-verdigris-500/50',
 }
 
-/** The mark of one claim; e.g. a mismatch with `holdsUnder: ['xy-plus']` is 'otherConvention'. */
-export function markOf(claim: Pick<ReportClaim, 'verdict' | 'holdsUnder'>): LineMark {
-  if (claim.verdict === 'mismatch') return claim.holdsUnder.length > 0 ? 'otherConvention' : 'mismatch'
-  return claim.verdict
-}
-
-/** The worst mark among claims (they must not be empty); e.g. verified + mismatch gives 'mismatch'. */
-export function worstMark(claims: readonly Pick<ReportClaim, 'verdict' | 'holdsUnder'>[]): LineMark {
-  return MARK_ORDER.find(mark => claims.some(c => markOf(c) === mark)) ?? 'verified'
-}
+/** Glyph and word (shared with the command line) and Tailwind classes of each mark; e.g. `MARKS.mismatch.glyph === '≠'`. */
+export const MARKS = Object.fromEntries(
+  (Object.keys(LINE_MARKS) as LineMark[]).map(mark => [mark, { ...LINE_MARKS[mark], tone: TONES[mark] }]),
+) as Record<LineMark, { glyph: string, word: string, meaning: string, tone: string }>
 
 /** Whether a mark means the manuscript and the engine disagree under the paper's conventions. */
 export function isDisagreement(mark: LineMark): boolean {

@@ -3,12 +3,14 @@
  * the reason when it is not verified and the term-by-term difference, then a summary.
  *
  * Marks (a glyph and a word, so that the text survives without colour):
- *   ✔ verified     ✘ mismatch     ⇄ convention (holds only under another convention)
- *   ○ unsupported  ○ skipped      ‼ error (could not be computed: too large, malformed)
+ *   = verified   ≠ mismatch   ⇄ other convention (holds only under another convention)
+ *   ? unsupported   ? skipped   ! error (could not be computed: too large, malformed)
+ * — the same marks as the web report (shared/check/marks.ts).
  * Colour is applied by the caller's `paint` (a no-op when stdout is not a terminal or NO_COLOR is set).
  */
 import { CONVENTION_AXES, REFERENCE_CONVENTIONS, type ConventionAxis } from '../../shared/types/conventions'
 import type { ClaimDiff, Report, ReportClaim } from '../../shared/types/report'
+import { LINE_MARKS, markOf, type LineMark } from '../../shared/check/marks'
 
 export type Tone = 'good' | 'bad' | 'shift' | 'quiet' | 'strong' | 'warn'
 export type Paint = (tone: Tone, text: string) => string
@@ -27,20 +29,12 @@ export function painter(colour: boolean): Paint {
   return colour ? (tone, text) => `${ANSI[tone][0]}${text}${ANSI[tone][1]}` : (_tone, text) => text
 }
 
-interface Mark { glyph: string, word: string, tone: Tone }
+const TONES: Record<LineMark, Tone> = { verified: 'good', mismatch: 'bad', otherConvention: 'shift', unsupported: 'quiet', skipped: 'quiet', error: 'warn' }
 
-/** The mark of a report line, e.g. `markOf(claim).word === 'mismatch'`. */
-export function markOf(claim: ReportClaim): Mark {
-  switch (claim.verdict) {
-    case 'verified': return { glyph: '✔', word: 'verified', tone: 'good' }
-    case 'mismatch': return claim.holdsUnder.length > 0
-      ? { glyph: '⇄', word: 'convention', tone: 'shift' }
-      : { glyph: '✘', word: 'mismatch', tone: 'bad' }
-    case 'unsupported': return claim.message.startsWith('skipped')
-      ? { glyph: '○', word: 'skipped', tone: 'quiet' }
-      : { glyph: '○', word: 'unsupported', tone: 'quiet' }
-    case 'error': return { glyph: '‼', word: 'error', tone: 'warn' }
-  }
+/** The mark of a report line, the same glyph and word as the web report; e.g. `mark(claim).word === 'mismatch'`. */
+export function mark(claim: ReportClaim): { glyph: string, word: string, tone: Tone } {
+  const which = markOf(claim)
+  return { ...LINE_MARKS[which], tone: TONES[which] }
 }
 
 const SOURCE_WIDTH = 90
@@ -92,9 +86,9 @@ export function renderReport(report: Report, source: string, paint: Paint, skipp
 }
 
 function renderClaim(claim: ReportClaim, width: number, paint: Paint): string[] {
-  const mark = markOf(claim)
+  const look = mark(claim)
   const lines = claim.endLine > claim.line ? `${claim.line}–${claim.endLine}` : String(claim.line)
-  const head = `  ${lines.padStart(width)}  ${paint(mark.tone, `${mark.glyph} ${mark.word.padEnd(11)}`)} ${shorten(oneLine(claim.source), SOURCE_WIDTH)}`
+  const head = `  ${lines.padStart(width)}  ${paint(look.tone, `${look.glyph} ${look.word.padEnd(16)}`)} ${shorten(oneLine(claim.source), SOURCE_WIDTH)}`
   const indent = ' '.repeat(width + 4)
   if (claim.verdict === 'verified') return [head]
   const out = [head, `${indent}${claim.message}`]

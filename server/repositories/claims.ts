@@ -3,7 +3,7 @@ import type { Db } from '../database/connect'
 import type { Report, ReportClaim } from '#shared/types/report'
 
 /** What a claim row keeps beyond its columns. */
-type ClaimDetails = Pick<ReportClaim, 'id' | 'diff' | 'message' | 'conventions' | 'breaksPaperConvention' | 'permutations'>
+type ClaimDetails = Pick<ReportClaim, 'id' | 'diff' | 'message' | 'conventions' | 'breaksPaperConvention' | 'permutations' | 'skipped'>
 
 /** A claim's identity across revisions: its kind and normalised source, not its line. */
 export function claimContentKey(claim: Pick<ReportClaim, 'kind' | 'source'>): string {
@@ -19,7 +19,11 @@ export async function replaceRunClaims(db: Db, checkRunId: string, claims: reado
   const now = new Date()
   for (let start = 0; start < claims.length; start += 500) {
     await db.insertInto('claims').values(claims.slice(start, start + 500).map((c, i) => {
-      const details: ClaimDetails = { id: c.id, diff: c.diff, message: c.message, conventions: c.conventions, permutations: c.permutations, ...(c.breaksPaperConvention ? { breaksPaperConvention: c.breaksPaperConvention } : {}) }
+      const details: ClaimDetails = {
+        id: c.id, diff: c.diff, message: c.message, conventions: c.conventions, permutations: c.permutations,
+        ...(c.breaksPaperConvention ? { breaksPaperConvention: c.breaksPaperConvention } : {}),
+        ...(c.skipped ? { skipped: true } : {}),
+      }
       return {
         check_run_id: checkRunId,
         ordinal: start + i,
@@ -66,6 +70,7 @@ export async function loadRunReport(db: Db, checkRunId: string): Promise<Report 
         conventions: d.conventions,
         ...(d.breaksPaperConvention ? { breaksPaperConvention: d.breaksPaperConvention } : {}),
         permutations: d.permutations,
+        ...(d.skipped ? { skipped: true as const } : {}),
       }
     }),
   }

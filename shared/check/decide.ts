@@ -58,7 +58,8 @@ export function decideClaim(claim: Claim, ev: ClaimEvaluation, conventions: Conv
     diff: null as ClaimDiff | null,
   }
   if (ev.status !== 'evaluated') {
-    return { ...base, verdict: ev.status === 'skipped' ? 'unsupported' : ev.status, message: ev.message, conventions: conventions.used }
+    if (ev.status === 'skipped') return { ...base, verdict: 'unsupported', skipped: true, message: ev.message, conventions: conventions.used }
+    return { ...base, verdict: ev.status, message: ev.message, conventions: conventions.used }
   }
   const effective: ConventionSet = { ...conventions.used, ...ev.fixed }
   const matches = (v: VariantResult) => ev.axes.every(axis => v.conventions[axis] === effective[axis])

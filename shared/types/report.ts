@@ -75,6 +75,8 @@ export interface ReportClaim {
   breaksPaperConvention?: { axis: keyof ConventionSet, paper: ConventionId, claim: ConventionId }
   /** Permutations the claim mentions (one-line), for drawings. */
   permutations: number[][]
+  /** Set on claims a tag asked to skip (their verdict is `unsupported`). */
+  skipped?: true
 }
 
 export interface ConventionReport {

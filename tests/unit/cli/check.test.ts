@@ -67,7 +67,7 @@ describe('exit codes', () => {
     const run = scholium('check', join(FIXTURES, 'one-wrong.tex'))
     expect(run.code).toBe(1)
     const line8 = run.stdout.split('\n').find(l => /^\s+8\s/.test(l))
-    expect(line8).toMatch(/✘ mismatch\s+\\Sch\{132\} = x_1$/)
+    expect(line8).toMatch(/≠ mismatch\s+\\Sch\{132\} = x_1$/)
     // The term the manuscript dropped is named in the difference.
     expect(run.stdout).toMatch(/missing\s+\+x_\{2\}/)
     expect(run.stdout).toMatch(/5 verified, 1 mismatch/)
@@ -76,7 +76,7 @@ describe('exit codes', () => {
   it('1 when a claim could not be computed (an error verdict counts as a failure)', () => {
     const run = scholium('check', join(FIXTURES, 'malformed.tex'))
     expect(run.code).toBe(1)
-    expect(run.stdout).toMatch(/^\s+4\s+‼ error/m)
+    expect(run.stdout).toMatch(/^\s+4\s+! error/m)
     expect(run.stdout).toMatch(/1 verified, 0 mismatch, 1 error/)
   })
   it('2 on a path that does not exist', () => {
@@ -213,7 +213,7 @@ describe('colour', () => {
   it('only when asked: the text report carries ANSI codes with a colour painter and none without', async () => {
     const { renderReport, painter } = await import('../../../scripts/cli/render')
     const r = report('check', join(FIXTURES, 'one-wrong.tex'))
-    expect(renderReport(r, 'one-wrong.tex', painter(true))).toContain(`${ESC}[31m✘ mismatch`)
+    expect(renderReport(r, 'one-wrong.tex', painter(true))).toContain(`${ESC}[31m≠ mismatch`)
     expect(renderReport(r, 'one-wrong.tex', painter(false))).not.toContain(ESC)
   })
 })

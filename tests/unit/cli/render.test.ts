@@ -3,7 +3,7 @@
  * reason under every line that is not verified, the difference term by term, notes and summary.
  */
 import { describe, it, expect } from 'vitest'
-import { markOf, painter, renderReport } from '../../../scripts/cli/render'
+import { mark, painter, renderReport } from '../../../scripts/cli/render'
 import { REFERENCE_CONVENTIONS } from '../../../shared/types/conventions'
 import type { Report, ReportClaim } from '../../../shared/types/report'
 
@@ -38,13 +38,13 @@ describe('text report', () => {
   const lineOf = (n: number) => lines.find(l => new RegExp(`^\\s+${n}\\s`).test(l))
 
   it('marks every claim line with a glyph and a word, numbers aligned', () => {
-    expect(lineOf(9)).toBe('    9  ✔ verified    \\mathfrak{S}_{132} = x_1 + x_2')
-    expect(lineOf(10)).toMatch(/^ {3}10 {2}✘ mismatch /)
-    expect(lineOf(11)).toMatch(/⇄ convention/)
-    expect(lineOf(100)).toMatch(/^ {2}100 {2}✘ mismatch /)
-    expect(lineOf(101)).toMatch(/○ unsupported/)
-    expect(lineOf(102)).toMatch(/‼ error/)
-    expect(markOf(claim(1, { verdict: 'unsupported', message: 'skipped at the author\'s request' })).word).toBe('skipped')
+    expect(lineOf(9)).toBe('    9  = verified         \\mathfrak{S}_{132} = x_1 + x_2')
+    expect(lineOf(10)).toMatch(/^ {3}10 {2}≠ mismatch /)
+    expect(lineOf(11)).toMatch(/⇄ other convention/)
+    expect(lineOf(100)).toMatch(/^ {2}100 {2}≠ mismatch /)
+    expect(lineOf(101)).toMatch(/\? unsupported/)
+    expect(lineOf(102)).toMatch(/! error/)
+    expect(mark(claim(1, { verdict: 'unsupported', skipped: true, message: 'skipped at the author\'s request' })).word).toBe('skipped')
   })
   it('gives the reason and the difference under a mismatch', () => {
     const at = lines.indexOf(lineOf(10)!)
