@@ -66,26 +66,3 @@ export async function listPendingInvitations(db: Db, manuscriptId: string): Prom
     .orderBy('created_at', 'desc').execute()
   return rows.map(r => ({ id: r.id, email: r.email, createdAt: r.created_at.toISOString(), expiresAt: r.expires_at.toISOString() }))
 }
-
-// What accepting a link changes. These touch other tables; they live here because
-// nothing but an invitation or the owner's removal changes them.
-
-/** Whether the address belongs to a member of the manuscript (case-insensitively). */
-export async function isMemberByEmail(db: Db, manuscriptId: string, email: string): Promise<boolean> {
-  const row = await db.selectFrom('manuscript_members as mm').innerJoin('users as u', 'u.id', 'mm.user_id')
-    .select('mm.user_id').where('mm.manuscript_id', '=', manuscriptId)
-    .where(eb => eb(eb.fn('lower', ['u.email']), '=', email.toLowerCase()))
-    .executeTakeFirst()
-  return row !== undefined
-}
-
-/** Removes one member; returns the removed row's role, or undefined when they were not a member. */
-export async function deleteManuscriptMember(db: Db, manuscriptId: string, userId: string): Promise<'author' | 'coauthor' | undefined> {
-  const row = await db.deleteFrom('manuscript_members').where('manuscript_id', '=', manuscriptId).where('user_id', '=', userId)
-    .returning('role').executeTakeFirst()
-  return row?.role
-}
-
-export async function updatePasswordHash(db: Db, userId: string, passwordHash: string): Promise<void> {
-  await db.updateTable('users').set({ password_hash: passwordHash }).where('id', '=', userId).execute()
-}

@@ -89,3 +89,19 @@ export async function findRevisionAccess(db: Db, revisionId: string, userId: str
   if (editor) return grant('editor')
   return undefined
 }
+
+/** Whether the address belongs to a member of the manuscript (case-insensitively). */
+export async function isMemberByEmail(db: Db, manuscriptId: string, email: string): Promise<boolean> {
+  const row = await db.selectFrom('manuscript_members as mm').innerJoin('users as u', 'u.id', 'mm.user_id')
+    .select('mm.user_id').where('mm.manuscript_id', '=', manuscriptId)
+    .where(eb => eb(eb.fn('lower', ['u.email']), '=', email.toLowerCase()))
+    .executeTakeFirst()
+  return row !== undefined
+}
+
+/** Removes one member; returns the removed row's role, or undefined when they were not a member. */
+export async function deleteManuscriptMember(db: Db, manuscriptId: string, userId: string): Promise<'author' | 'coauthor' | undefined> {
+  const row = await db.deleteFrom('manuscript_members').where('manuscript_id', '=', manuscriptId).where('user_id', '=', userId)
+    .returning('role').executeTakeFirst()
+  return row?.role
+}

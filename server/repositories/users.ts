@@ -57,3 +57,7 @@ export async function recordSignInFailure(db: Db, emailKey: string, clientAddres
 export async function clearSignInFailures(db: Db, emailKey: string): Promise<void> {
   await db.deleteFrom('sign_in_failures').where('email_key', '=', emailKey).execute()
 }
+
+export async function updatePasswordHash(db: Db, userId: string, passwordHash: string): Promise<void> {
+  await db.updateTable('users').set({ password_hash: passwordHash }).where('id', '=', userId).execute()
+}

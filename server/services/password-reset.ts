@@ -4,8 +4,8 @@
  * sets the new password, closes any other reset links and clears failed sign-ins.
  */
 import type { Db } from '../database/connect'
-import { findUserByEmail, clearSignInFailures } from '../repositories/users'
-import { closeOpenInvitations, countRecentInvitations, insertInvitation, markInvitationUsed, updatePasswordHash } from '../repositories/invitations'
+import { clearSignInFailures, findUserByEmail, updatePasswordHash } from '../repositories/users'
+import { closeOpenInvitations, countRecentInvitations, insertInvitation, markInvitationUsed } from '../repositories/invitations'
 import { appendAudit } from '../repositories/audit'
 import { passwordResetMail } from '../mail/messages'
 import { newLinkToken, openInvitation } from './invitations'
