@@ -4,23 +4,10 @@
 // started by the test (`--run <id>`, off the queue), so the threshold is the test's own.
 import { spawn } from 'node:child_process'
 import { describe, expect, it } from 'vitest'
-import { baseUrl, db, filesForm, inboxUrl, newMember, SMALL_TEX } from './helpers'
+import { baseUrl, db, filesForm, mailsTo, newMember, SMALL_TEX, waitForRun } from './helpers'
 
-interface Mail { id: string, to: string[], subject: string, text: string }
-
-async function checkMailsTo(to: string): Promise<Mail[]> {
-  const messages = await (await fetch(`${inboxUrl}/messages`)).json() as Mail[]
-  return messages.filter(m => m.to.includes(to) && /^Check finished/.test(m.subject))
-}
-
-async function waitForRun(checkRunId: string, timeoutMs = 60_000) {
-  const started = Date.now()
-  for (;;) {
-    const run = await db.selectFrom('check_runs').selectAll().where('id', '=', checkRunId).executeTakeFirstOrThrow()
-    if (run.status === 'finished' || run.status === 'failed') return run
-    if (Date.now() - started > timeoutMs) throw new Error(`run ${checkRunId} still ${run.status} after ${timeoutMs} ms`)
-    await new Promise(resolve => setTimeout(resolve, 100))
-  }
+async function checkMailsTo(to: string) {
+  return (await mailsTo(to)).filter(m => /^Check finished/.test(m.subject))
 }
 
 /** A member with an uploaded one-claim revision whose own first run has finished. */

@@ -2,22 +2,12 @@
 import { spawn } from 'node:child_process'
 import { readFileSync } from 'node:fs'
 import { describe, expect, it } from 'vitest'
-import { db, filesForm, newMember } from './helpers'
+import { db, filesForm, newMember, waitForRun } from './helpers'
 import { makeZip } from '../helpers/archives'
 import { readManuscript } from '../../shared/latex'
 import { REPORT_SCHEMA } from '../../shared/types/report'
 
 const demo = (path: string) => readFileSync(`server/assets/demo/${path}`, 'utf8')
-
-async function waitForRun(checkRunId: string, until: (status: string, done: number) => boolean, timeoutMs = 60_000) {
-  const started = Date.now()
-  for (;;) {
-    const run = await db.selectFrom('check_runs').selectAll().where('id', '=', checkRunId).executeTakeFirstOrThrow()
-    if (until(run.status, run.claims_done)) return run
-    if (Date.now() - started > timeoutMs) throw new Error(`run ${checkRunId} still ${run.status} after ${timeoutMs} ms`)
-    await new Promise(resolve => setTimeout(resolve, 100))
-  }
-}
 
 async function uploadDemoDraft() {
   const me = await newMember('checker')

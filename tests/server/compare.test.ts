@@ -4,20 +4,10 @@
 // Schubert polynomials" (1991), table for S_4, recalled from memory); nothing else changes.
 import { readFileSync } from 'node:fs'
 import { describe, expect, it } from 'vitest'
-import { db, filesForm, newMember, type Client } from './helpers'
+import { db, filesForm, newMember, type Client, waitForRun } from './helpers'
 import { makeZip } from '../helpers/archives'
 
 const demo = (path: string) => readFileSync(`server/assets/demo/vexillary-flags/${path}`, 'utf8')
-
-async function waitForRun(checkRunId: string, timeoutMs = 60_000) {
-  const started = Date.now()
-  for (;;) {
-    const run = await db.selectFrom('check_runs').select('status').where('id', '=', checkRunId).executeTakeFirstOrThrow()
-    if (run.status === 'finished' || run.status === 'failed') return run.status
-    if (Date.now() - started > timeoutMs) throw new Error(`run ${checkRunId} still ${run.status} after ${timeoutMs} ms`)
-    await new Promise(resolve => setTimeout(resolve, 100))
-  }
-}
 
 async function uploadDraft(client: Client, manuscriptId: string, rev: 'rev1' | 'rev2', wait = true) {
   const zip = makeZip([
@@ -26,7 +16,7 @@ async function uploadDraft(client: Client, manuscriptId: string, rev: 'rev1' | '
   ])
   const res = await client.post(`/api/manuscripts/${manuscriptId}/revisions`, filesForm([{ name: `${rev}.zip`, content: zip }]))
   expect(res.status).toBe(201)
-  if (wait) expect(await waitForRun(res.body.checkRunId)).toBe('finished')
+  if (wait) expect((await waitForRun(res.body.checkRunId)).status).toBe('finished')
   return res.body.id as string
 }
 

@@ -2,23 +2,13 @@
 // never see them) and convention decisions (proposal → agreement → accepted → conventions set and re-checked).
 import { randomUUID } from 'node:crypto'
 import { describe, expect, it } from 'vitest'
-import { db, filesForm, newMember, type Client } from './helpers'
+import { db, filesForm, newMember, type Client, waitForRun } from './helpers'
 
 const paper = (...lines: string[]) => `\\documentclass{article}\n\\begin{document}\n${lines.join('\n')}\n\\end{document}\n`
 // S_132 = x_1 + x_2 and S_231 = x_1 x_2 (common practice: the smallest Schubert polynomials of S_3).
 const REV1 = paper('$\\mathfrak{S}_{132} = x_1 + x_2$', '$\\mathfrak{S}_{231} = x_1 x_2$')
 // Revision 2 puts two lines in front, so the same claims sit on other lines with other report ids.
 const REV2 = paper('Some words first.', '', '$\\mathfrak{S}_{132} = x_1 + x_2$', '$\\mathfrak{S}_{231} = x_1 x_2$')
-
-async function waitForRun(checkRunId: string, timeoutMs = 60_000) {
-  const started = Date.now()
-  for (;;) {
-    const run = await db.selectFrom('check_runs').selectAll().where('id', '=', checkRunId).executeTakeFirstOrThrow()
-    if (run.status === 'finished' || run.status === 'failed') return run
-    if (Date.now() - started > timeoutMs) throw new Error(`run ${checkRunId} still ${run.status} after ${timeoutMs} ms`)
-    await new Promise(resolve => setTimeout(resolve, 100))
-  }
-}
 
 async function upload(client: Client, manuscriptId: string, tex: string) {
   const res = await client.post(`/api/manuscripts/${manuscriptId}/revisions`, filesForm([{ name: 'main.tex', content: tex }]))

@@ -80,3 +80,35 @@ export function filesForm(files: { name: string, content: string | Uint8Array }[
 }
 
 export const SMALL_TEX = '\\documentclass{article}\n\\begin{document}\n$\\mathfrak{S}_{132} = x_1 + x_2$\n\\end{document}\n'
+
+/** Polls `probe` until it returns a value (not undefined), or fails after `timeoutMs` with `what`. */
+export async function eventually<T>(what: string, probe: () => Promise<T | undefined>, timeoutMs = 60_000, intervalMs = 100): Promise<T> {
+  const started = Date.now()
+  for (;;) {
+    const value = await probe()
+    if (value !== undefined) return value
+    if (Date.now() - started > timeoutMs) throw new Error(`${what}: not after ${timeoutMs} ms`)
+    await new Promise(resolve => setTimeout(resolve, intervalMs))
+  }
+}
+
+/** A check run's row once `until` holds (default: it has ended, finished or failed). */
+export function waitForRun(checkRunId: string, until: (status: string, claimsDone: number) => boolean = status => status === 'finished' || status === 'failed', timeoutMs = 60_000) {
+  return eventually(`run ${checkRunId}`, async () => {
+    const run = await db.selectFrom('check_runs').selectAll().where('id', '=', checkRunId).executeTakeFirstOrThrow()
+    return until(run.status, run.claims_done) ? run : undefined
+  }, timeoutMs)
+}
+
+export interface InboxMail { id: string, receivedAt: string, from: string, to: string[], subject: string, text: string, html: string | null }
+
+/** Every message the mail fake holds for `address` (case-insensitive), newest first. */
+export async function mailsTo(address: string): Promise<InboxMail[]> {
+  const all = await (await fetch(new URL('/messages', inboxUrl))).json() as InboxMail[]
+  return all.filter(m => m.to.some(to => to.toLowerCase() === address.toLowerCase()))
+}
+
+/** The newest message to `address` whose subject matches, once it has arrived. */
+export function waitForMail(address: string, subject: RegExp, timeoutMs = 15_000): Promise<InboxMail> {
+  return eventually(`mail to ${address} matching ${subject}`, async () => (await mailsTo(address)).find(m => subject.test(m.subject)), timeoutMs, 150)
+}

@@ -2,21 +2,7 @@
 // the owner invites and removes; coauthors read, upload and re-check; strangers see nothing.
 import { createHash } from 'node:crypto'
 import { describe, expect, it } from 'vitest'
-import { baseUrl, Client, db, filesForm, inboxUrl, newMember, SMALL_TEX } from './helpers'
-
-interface Mail { id: string, to: string[], subject: string, text: string }
-
-/** Waits for the newest message to `to` whose subject matches, from the mail fake's inbox. */
-async function waitForMail(to: string, subject: RegExp, timeoutMs = 15_000): Promise<Mail> {
-  const started = Date.now()
-  for (;;) {
-    const messages = await (await fetch(`${inboxUrl}/messages`)).json() as Mail[]
-    const found = messages.find(m => m.to.some(a => a.toLowerCase() === to.toLowerCase()) && subject.test(m.subject))
-    if (found) return found
-    if (Date.now() - started > timeoutMs) throw new Error(`no mail to ${to} matching ${subject} after ${timeoutMs} ms`)
-    await new Promise(resolve => setTimeout(resolve, 150))
-  }
-}
+import { baseUrl, Client, db, filesForm, newMember, SMALL_TEX, waitForMail } from './helpers'
 
 const linkPattern = new RegExp(`${baseUrl.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}/invitations/([A-Za-z0-9_-]+)`)
 

@@ -2,21 +2,14 @@
 // link sets a new password once, within the hour, and clears the failed sign-in counter.
 import { randomUUID } from 'node:crypto'
 import { describe, expect, it } from 'vitest'
-import { baseUrl, Client, db, inboxUrl, newMember } from './helpers'
-
-interface Mail { id: string, to: string[], subject: string, text: string }
-
-async function mailTo(to: string): Promise<Mail[]> {
-  const messages = await (await fetch(`${inboxUrl}/messages`)).json() as Mail[]
-  return messages.filter(m => m.to.some(a => a.toLowerCase() === to.toLowerCase()))
-}
+import { baseUrl, Client, db, newMember, mailsTo } from './helpers'
 
 /** Waits until `count` reset mails to `to` have arrived; returns the tokens of their links, newest first. */
 async function waitForResetLinks(to: string, count = 1, timeoutMs = 15_000): Promise<string[]> {
   const pattern = new RegExp(`${baseUrl.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}/password-reset/([A-Za-z0-9_-]+)`)
   const started = Date.now()
   for (;;) {
-    const tokens = (await mailTo(to)).filter(m => /new Scholium password/.test(m.subject)).map(m => pattern.exec(m.text)?.[1]).filter((t): t is string => !!t)
+    const tokens = (await mailsTo(to)).filter(m => /new Scholium password/.test(m.subject)).map(m => pattern.exec(m.text)?.[1]).filter((t): t is string => !!t)
     if (tokens.length >= count) return tokens
     if (Date.now() - started > timeoutMs) throw new Error(`${tokens.length} reset mail(s) to ${to} after ${timeoutMs} ms, wanted ${count}`)
     await new Promise(resolve => setTimeout(resolve, 150))
@@ -64,7 +57,7 @@ describe('password reset', () => {
     // The known address's mail arriving shows the mail went out; by then the other would have too.
     await waitForResetLinks(known.email)
     await new Promise(resolve => setTimeout(resolve, 1000))
-    expect(await mailTo(unknown)).toEqual([])
+    expect(await mailsTo(unknown)).toEqual([])
     expect(await db.selectFrom('invitations').select('id').where('email', '=', unknown).execute()).toEqual([])
   })
 

@@ -11,8 +11,7 @@ import { createHash, randomUUID } from 'node:crypto'
 import { readdirSync } from 'node:fs'
 import { join, relative } from 'node:path'
 import { beforeAll, describe, expect, it } from 'vitest'
-import type { InboxMessage } from '../../shared/types/api'
-import { type ApiResponse, type Client, db, demoClient, filesForm, inboxUrl, newMember, SMALL_TEX } from './helpers'
+import { type ApiResponse, type Client, db, demoClient, filesForm, newMember, SMALL_TEX, mailsTo, waitForMail } from './helpers'
 import { DEMO_PEOPLE } from '../../server/services/demo-people'
 
 export const PAPER = [
@@ -41,20 +40,9 @@ async function waitForFinishedRun(revisionId: string): Promise<void> {
   throw new Error('no finished check run within 90 s')
 }
 
-async function messagesTo(address: string): Promise<InboxMessage[]> {
-  const all = await (await fetch(new URL('/messages', inboxUrl))).json() as InboxMessage[]
-  return all.filter(m => m.to.some(to => to.toLowerCase() === address.toLowerCase()))
-}
-
 /** Waits for a mail to `address` whose subject contains `subject`. */
-async function mailTo(address: string, subject: string): Promise<InboxMessage> {
-  const deadline = Date.now() + 10_000
-  while (Date.now() < deadline) {
-    const found = (await messagesTo(address)).find(m => m.subject.includes(subject))
-    if (found) return found
-    await new Promise(resolve => setTimeout(resolve, 150))
-  }
-  throw new Error(`no mail to ${address} about "${subject}"`)
+function mailTo(address: string, subject: string) {
+  return waitForMail(address, new RegExp(subject.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')), 10_000)
 }
 
 /** The token of the newest referee invitation link mailed to `address`. */
@@ -102,8 +90,8 @@ let submissionId: string, otherSubmissionId: string, otherRevisionId: string, as
 let acceptToken: string
 
 beforeAll(async () => {
-  [author, coauthor, editor, otherEditor, referee, otherReferee] = await Promise.all(
-    ['author', 'coauthor', 'editor', 'other-editor', 'referee', 'other-referee'].map(label => newMember(label)))
+  const members = await Promise.all(['author', 'coauthor', 'editor', 'other-editor', 'referee', 'other-referee'].map(label => newMember(label)))
+  ;[author, coauthor, editor, otherEditor, referee, otherReferee] = members as [Member, Member, Member, Member, Member, Member]
   venueId = await newVenue(editor.id, 'Tidewater Letters in Flag Combinatorics')
   otherVenueId = await newVenue(otherEditor.id, 'Quillmoor Studies in Tableaux')
   paper = await checkedManuscript(author, `Alpha: transpositions ${randomUUID().slice(0, 6)}`, PAPER, seen)
@@ -188,7 +176,7 @@ describe('referee invitations', () => {
     expect((await invite(editor.client, 'not-a-uuid', target)).status).toBe(404)
     expect((await invite(editor.client, submissionId, 'not an address')).status).toBe(400)
     await new Promise(resolve => setTimeout(resolve, 300))
-    expect(await messagesTo(target)).toEqual([])
+    expect(await mailsTo(target)).toEqual([])
   })
 })
 
@@ -288,7 +276,7 @@ describe('referee notes', () => {
     // Releasing again sends no second mail.
     expect((await editor.client.post(`/api/submissions/${submissionId}/referees/${assignmentId}/release`)).status).toBe(200)
     await new Promise(resolve => setTimeout(resolve, 300))
-    expect((await messagesTo(author.email)).filter(m => m.subject.includes('Referee notes released'))).toHaveLength(1)
+    expect((await mailsTo(author.email)).filter(m => m.subject.includes('Referee notes released'))).toHaveLength(1)
   })
 
   it('released notes can no longer be changed (409)', async () => {
