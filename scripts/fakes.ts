@@ -16,6 +16,7 @@ import { randomUUID } from 'node:crypto'
 import S3rver from 's3rver'
 import { SMTPServer } from 'smtp-server'
 import { simpleParser, type AddressObject } from 'mailparser'
+import type { InboxMessage } from '../shared/types/api'
 
 const env = (name: string, fallback: string) => process.env[name] ?? fallback
 const S3_PORT = Number(env('S3_PORT', '4569'))
@@ -26,13 +27,8 @@ const MAIL_DIR = env('MAIL_DIR', 'storage/demo/mail')
 const INBOX_PORT = Number(env('INBOX_PORT', '2526'))
 const HOST = '127.0.0.1'
 
-export interface StoredMail {
-  id: string
-  receivedAt: string
-  from: string
-  to: string[]
-  subject: string
-  text: string
+/** What the inbox serves: the shape the admin page reads, plus the HTML part. */
+export interface StoredMail extends InboxMessage {
   html: string | null
 }
 
