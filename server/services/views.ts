@@ -1,5 +1,5 @@
 import type { Db } from '../database/connect'
-import type { DeskSummary, ManuscriptView, RevisionView, SessionUser } from '#shared/types/api'
+import type { DeskSummary, ManuscriptView, ReviewListItem, RevisionView, SessionUser } from '#shared/types/api'
 import { listManuscriptMembers, listManuscriptsForUser } from '../repositories/manuscripts'
 import { listRevisionFiles, listRevisions } from '../repositories/revisions'
 import { latestRunsByRevision } from '../repositories/check-runs'
@@ -44,23 +44,24 @@ export async function manuscriptView(db: Db, grant: ManuscriptGrant): Promise<Ma
 
 /** Everything a user's landing page shows, by the roles they hold. */
 export async function deskSummary(db: Db, user: SessionUser): Promise<DeskSummary> {
-  const [manuscripts, editorOf, assignments] = await Promise.all([
+  const [manuscripts, editorOf, reviews] = await Promise.all([
     listManuscriptsForUser(db, user.id),
     listVenuesForEditor(db, user.id),
-    listAssignmentsForReferee(db, user.id),
+    reviewList(db, user.id),
   ])
-  return {
-    user,
-    manuscripts,
-    editorOf,
-    reviews: assignments.map(a => ({
-      assignmentId: a.id,
-      submissionId: a.submission_id,
-      manuscriptTitle: a.title,
-      venueName: a.venueName,
-      revisionNumber: a.number,
-      assignedAt: a.created_at.toISOString(),
-      released: a.released_at !== null,
-    })),
-  }
+  return { user, manuscripts, editorOf, reviews }
+}
+
+/** The submissions a user referees, newest first. */
+export async function reviewList(db: Db, userId: string): Promise<ReviewListItem[]> {
+  const assignments = await listAssignmentsForReferee(db, userId)
+  return assignments.map(a => ({
+    assignmentId: a.id,
+    submissionId: a.submission_id,
+    manuscriptTitle: a.title,
+    venueName: a.venueName,
+    revisionNumber: a.number,
+    assignedAt: a.created_at.toISOString(),
+    released: a.released_at !== null,
+  }))
 }

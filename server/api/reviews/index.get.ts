@@ -1,6 +1,6 @@
-import { deskSummary } from '../../services/views'
+import { reviewList } from '../../services/views'
 
 export default defineEventHandler(async (event) => {
   const { user } = await authorize(event, { signedIn: true })
-  return (await deskSummary(useDb(), user)).reviews
+  return reviewList(useDb(), user.id)
 })
