@@ -8,6 +8,8 @@ import path from 'node:path'
 import { fileURLToPath } from 'node:url'
 import { FileMigrationProvider, Kysely, Migrator, PostgresDialect } from 'kysely'
 import pg from 'pg'
+import PgBoss from 'pg-boss'
+import { ensureCheckQueue } from '../server/jobs/queue-names'
 
 const databaseUrl = process.env.NUXT_DATABASE_URL ?? process.env.DATABASE_URL
 if (!databaseUrl) {
@@ -33,4 +35,14 @@ await db.destroy()
 if (error) {
   console.error('migrate: failed', error)
   process.exit(1)
+}
+
+// pg-boss keeps its own schema; creating it and the check queue here, before the web
+// server and the workers start, spares them doing it all at once.
+if (!process.argv.includes('--down')) {
+  const boss = new PgBoss({ connectionString: databaseUrl, max: 1 })
+  await boss.start()
+  await ensureCheckQueue(boss)
+  await boss.stop({ graceful: false, wait: true })
+  console.log('migrate: job queue ready')
 }

@@ -12,7 +12,7 @@ import PgBoss from 'pg-boss'
 import { Piscina } from 'piscina'
 import { connectDatabase } from '../server/database/connect'
 import { createSourceStore } from '../server/storage/source-store'
-import { CHECK_JOB_OPTIONS, CHECK_QUEUE, type CheckJobData } from '../server/jobs/queue-names'
+import { CHECK_JOB_OPTIONS, CHECK_QUEUE, ensureCheckQueue, type CheckJobData } from '../server/jobs/queue-names'
 import { listQueuedRuns, processCheckRun, releaseExpiredLeases, type CheckRunDeps } from '../server/jobs/check-run'
 import { workerSettingsFromEnv } from '../server/jobs/worker-settings'
 import { createMailSender, smtpSettingsFromEnv } from '../server/mail/transport'
@@ -48,7 +48,7 @@ if (onlyRun !== -1) {
 const boss = new PgBoss({ connectionString: settings.databaseUrl, max: 3 })
 boss.on('error', error => console.error('[worker] queue error', error))
 await boss.start()
-await boss.createQueue(CHECK_QUEUE)
+await ensureCheckQueue(boss)
 
 for (let i = 0; i < settings.concurrency; i++) {
   await boss.work<CheckJobData>(CHECK_QUEUE, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => {

@@ -1,6 +1,6 @@
 import PgBoss from 'pg-boss'
 
-import { CHECK_JOB_OPTIONS, CHECK_QUEUE, type CheckJobData } from '../jobs/queue-names'
+import { CHECK_JOB_OPTIONS, CHECK_QUEUE, ensureCheckQueue, type CheckJobData } from '../jobs/queue-names'
 
 let boss: Promise<PgBoss> | undefined
 
@@ -11,7 +11,7 @@ export function useQueue(): Promise<PgBoss> {
     const instance = new PgBoss({ connectionString: databaseUrl, max: 3 })
     instance.on('error', error => console.error('[queue]', error))
     await instance.start()
-    await instance.createQueue(CHECK_QUEUE)
+    await ensureCheckQueue(instance)
     return instance
   })()
   return boss
