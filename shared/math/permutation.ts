@@ -407,10 +407,18 @@ export function vexillaryShape(w: Permutation): number[] {
 
 /** Number of reduced words of w (exact, as bigint); e.g. 16n for 4321. */
 export function countReducedWords(w: Permutation, budget?: Budget | BudgetMeter): bigint {
+  return sumOverReducedWords(w, () => 1n, budget)
+}
+
+/**
+ * Σ over reduced words a of w of ∏ weight(a_k), by recursion on the last letter (a reduced
+ * word ends in a right descent) with memoisation: #R(w) for weight 1, Macdonald's numerator
+ * for weight a ↦ a.
+ */
+function sumOverReducedWords(w: Permutation, weight: (letter: number) => bigint, budget?: Budget | BudgetMeter): bigint {
   const meter = toMeter(budget)
   const memo = new Map<string, bigint>()
-  // #R(w) = Σ over descents i of #R(w s_i): the last letter of a reduced word is a right descent.
-  const count = (line: number[]): bigint => {
+  const go = (line: number[]): bigint => {
     const key = line.join(',')
     const hit = memo.get(key)
     if (hit !== undefined) return hit
@@ -423,7 +431,7 @@ export function countReducedWords(w: Permutation, budget?: Budget | BudgetMeter)
         const next = line.slice()
         next[i] = line[i + 1]!
         next[i + 1] = line[i]!
-        total += count(next)
+        total += weight(i + 1) * go(next)
       }
     }
     if (!any) total = 1n
@@ -431,7 +439,7 @@ export function countReducedWords(w: Permutation, budget?: Budget | BudgetMeter)
     meter.terms(memo.size, 'memoised permutations')
     return total
   }
-  return count(w.oneLine.slice())
+  return go(w.oneLine.slice())
 }
 
 /** All reduced words of w (each a list of indices a with w = s_{a_1}⋯s_{a_ℓ}); e.g. 321 ↦ [[1,2,1],[2,1,2]]. */
@@ -464,29 +472,7 @@ export function reducedWords(w: Permutation, budget?: Budget | BudgetMeter): num
 
 /** Σ over reduced words a of a_1⋯a_ℓ (exact), the numerator of Macdonald's identity. */
 export function sumOverReducedWordsOfProducts(w: Permutation, budget?: Budget | BudgetMeter): bigint {
-  const meter = toMeter(budget)
-  const memo = new Map<string, bigint>()
-  const go = (line: number[]): bigint => {
-    const key = line.join(',')
-    const hit = memo.get(key)
-    if (hit !== undefined) return hit
-    meter.step()
-    let total = 0n
-    let any = false
-    for (let i = 0; i + 1 < line.length; i++) {
-      if (line[i]! > line[i + 1]!) {
-        any = true
-        const next = line.slice()
-        next[i] = line[i + 1]!
-        next[i + 1] = line[i]!
-        total += BigInt(i + 1) * go(next)
-      }
-    }
-    if (!any) total = 1n
-    memo.set(key, total)
-    return total
-  }
-  return go(w.oneLine.slice())
+  return sumOverReducedWords(w, letter => BigInt(letter), budget)
 }
 
 /** All permutations of S_n in lexicographic one-line order; e.g. `allPermutations(3).length === 6`. */
