@@ -16,6 +16,8 @@ import { readManuscript } from '../../shared/latex'
 import { appendAudit } from '../repositories/audit'
 import { createRevision, type UploadedPart } from './revisions'
 import { DEMO_PASSWORD, DEMO_PEOPLE } from './demo-people'
+import { agreeToConvention, proposeConvention } from './conventions'
+import { listConventionDecisions } from '../repositories/convention-decisions'
 
 const VENUES = {
   ledgerfield: { slug: 'ledgerfield-jac', name: 'Ledgerfield Journal of Algebraic Combinatorics', description: 'A quarterly for flag varieties, tableaux and their polynomials.' },
@@ -42,6 +44,7 @@ export async function seedDemo(db: Db, readAssets: DemoAssets): Promise<void> {
     { by: ids.author, prefix: 'demo:vexillary-flags:rev1', note: 'First draft with the small cases.' },
     { by: ids.coauthor, prefix: 'demo:vexillary-flags:rev2', note: 'Fixed the pipe dream count and the Grassmannian example.' },
   ], readAssets)
+  await seedConventionDecision(db, { manuscriptId: flags, proposerId: ids.author, agreeingId: ids.coauthor })
 
   const tilings = await ensureManuscript(db, ids.soloAuthor, 'A note on bumpless tilings of small permutations')
   await ensureRevisions(db, tilings, [{ by: ids.soloAuthor, prefix: 'demo:bumpless-tilings:rev1', note: 'Submitted version.' }], readAssets)
@@ -52,6 +55,17 @@ export async function seedDemo(db: Db, readAssets: DemoAssets): Promise<void> {
     const assignment = await insertRefereeAssignment(db, { submissionId: submission.id, refereeId: ids.referee, invitedBy: ids.editor })
     await seedReleasedRefereeNotes(db, { assignmentId: assignment.id, submissionId: submission.id, manuscriptId: tilings, refereeId: ids.referee, editorId: ids.editor }, readAssets)
   }
+}
+
+/**
+ * The coauthors of the flags manuscript settle the sign of double polynomials: the author
+ * proposes x_i − y_j, the coauthor agrees, and the accepted decision fixes the manuscript's
+ * convention (and re-checks its newest revision) through the same service the API uses.
+ */
+async function seedConventionDecision(db: Db, at: { manuscriptId: string, proposerId: string, agreeingId: string }): Promise<void> {
+  if ((await listConventionDecisions(db, at.manuscriptId)).length > 0) return
+  const proposal = await proposeConvention(db, { manuscriptId: at.manuscriptId, userId: at.proposerId, axis: 'doubleSign', conventionId: 'xy-minus' })
+  await agreeToConvention(db, { manuscriptId: at.manuscriptId, userId: at.agreeingId, decisionId: proposal.decisionId })
 }
 
 /**

@@ -101,6 +101,15 @@ describe('coauthor', () => {
     expect(res.body.myRole).toBe('coauthor')
     expect(res.body.revisions.length).toBeGreaterThanOrEqual(2)
   })
+  it('settled the demo paper\'s double-polynomial sign with the author by a decision', async () => {
+    const { flags } = await demoIds()
+    const res = await (await demoClient('coauthor')).get(`/api/manuscripts/${flags}/convention-decisions`)
+    expect(res.status).toBe(200)
+    expect(res.body.conventions).toEqual({ doubleSign: 'xy-minus' })
+    const [decision] = res.body.decisions
+    expect(decision).toMatchObject({ axis: 'doubleSign', conventionId: 'xy-minus', status: 'accepted', proposedBy: { displayName: DEMO_PEOPLE.author.displayName } })
+    expect(decision.agreedBy.map((p: { displayName: string }) => p.displayName)).toEqual([DEMO_PEOPLE.coauthor.displayName])
+  })
   it('may not delete the manuscript (403) and it stays', async () => {
     const { flags } = await demoIds()
     const res = await (await demoClient('coauthor')).delete(`/api/manuscripts/${flags}`)
