@@ -7,16 +7,10 @@ import {
   combinationEntries, countPipeDreams, countReducedWords, doubleSchubertPolynomial, littlewoodRichardson, Permutation,
   schubertPolynomial, schubertProduct, schurProduct,
 } from '../../shared/math'
+import { seeded } from '../../tests/helpers/seeded-random'
 
-// mulberry32, so that every run checks the same manuscript
-let seed = 1789
-function rand(): number {
-  seed = (seed + 0x6d2b79f5) >>> 0
-  let t = seed
-  t = Math.imul(t ^ (t >>> 15), t | 1)
-  t ^= t + Math.imul(t ^ (t >>> 7), t | 61)
-  return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-}
+// Seeded, so that every run checks the same manuscript (buildManuscript resets it).
+let rand = seeded(1789)
 const randomInt = (lo: number, hi: number) => lo + Math.floor(rand() * (hi - lo + 1))
 function randomPermutation(n: number, maxLength: number): Permutation {
   for (;;) {
@@ -81,7 +75,7 @@ function claim(kind: number): string {
 const PROSE = 'We compare the expansions term by term and note where each monomial comes from in the staircase.'
 /** A manuscript of `claims` claims over `sections` section files plus main.tex; the same on every call with the same seed. */
 export function buildManuscript(claims = 1000, sections = 10, seedValue = 1789): Record<string, string> {
-  seed = seedValue
+  rand = seeded(seedValue)
   const files: Record<string, string> = {}
   let made = 0
   for (let s = 1; s <= sections; s++) {

@@ -1,17 +1,7 @@
 /** Test helpers: a tiny seeded PRNG (mulberry32) and random permutations. */
 import { Permutation } from '../../../shared/math'
 
-/** Deterministic PRNG in [0, 1); e.g. `const rand = seeded(42)`. */
-export function seeded(seed: number): () => number {
-  let a = seed >>> 0
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0
-    let t = a
-    t = Math.imul(t ^ (t >>> 15), t | 1)
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61)
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296
-  }
-}
+export { seeded } from '../../helpers/seeded-random'
 
 /** Uniform random element of S_n (Fisher–Yates). */
 export function randomPermutation(rand: () => number, n: number): Permutation {

@@ -1,0 +1,16 @@
+/**
+ * A seeded PRNG (mulberry32) for tests, fixture generators and benchmarks: the same seed gives
+ * the same sequence on every run. No imports, so generators that must not touch the engine can use it.
+ */
+
+/** Deterministic numbers in [0, 1); e.g. `const rand = seeded(42)`. */
+export function seeded(seed: number): () => number {
+  let a = seed >>> 0
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0
+    let t = a
+    t = Math.imul(t ^ (t >>> 15), t | 1)
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61)
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296
+  }
+}
