@@ -215,6 +215,13 @@ export interface Statement {
   relations: { rel: Relation; node: MathNode; name: string }[]
 }
 
+/** Bracket depth after node `n`: ( [ and \left open, ) ] and \right close (never below 0). */
+function bracketDepthAfter(n: MathNode, depth: number): number {
+  if ((n.k === 'ch' && (n.v === '(' || n.v === '[')) || (n.k === 'cs' && n.v === 'left')) return depth + 1
+  if ((n.k === 'ch' && (n.v === ')' || n.v === ']')) || (n.k === 'cs' && n.v === 'right')) return Math.max(0, depth - 1)
+  return depth
+}
+
 /**
  * Cut a row into statements at \quad, \qquad, top-level commas and semicolons, and prose such as
  * \text{and}; then each statement into parts at relation symbols.
@@ -225,10 +232,7 @@ export function splitStatements(nodes: MathNode[]): Statement[] {
   let depth = 0
   for (let i = 0; i < nodes.length; i++) {
     const n = nodes[i]!
-    if (n.k === 'ch' && (n.v === '(' || n.v === '[')) depth++
-    else if (n.k === 'ch' && (n.v === ')' || n.v === ']')) depth = Math.max(0, depth - 1)
-    else if (n.k === 'cs' && n.v === 'left') depth++
-    else if (n.k === 'cs' && n.v === 'right') depth = Math.max(0, depth - 1)
+    depth = bracketDepthAfter(n, depth)
     let isBreak = false
     if (n.k === 'cs' && (n.v === 'quad' || n.v === 'qquad')) isBreak = true
     else if (depth === 0 && n.k === 'ch' && (n.v === ',' || n.v === ';')) isBreak = true
@@ -266,10 +270,7 @@ function toStatement(nodes: MathNode[]): Statement {
   let depth = 0
   for (let i = 0; i < nodes.length; i++) {
     const n = nodes[i]!
-    if (n.k === 'ch' && (n.v === '(' || n.v === '[')) depth++
-    else if (n.k === 'ch' && (n.v === ')' || n.v === ']')) depth = Math.max(0, depth - 1)
-    else if (n.k === 'cs' && n.v === 'left') depth++
-    else if (n.k === 'cs' && n.v === 'right') depth = Math.max(0, depth - 1)
+    depth = bracketDepthAfter(n, depth)
     let rel: Relation | undefined
     let name = ''
     if (depth === 0 && isChar(n, ':') && isChar(nodes[i + 1], '=')) {
