@@ -1,7 +1,7 @@
 // Issue 11, deliverable 5: state-changing requests from another site are refused
 // (CSRF, login CSRF included), and every response carries the security headers.
 import { describe, expect, it } from 'vitest'
-import { baseUrl, newMember } from './helpers'
+import { baseUrl, Client, demoClient, newMember, waitForMail } from './helpers'
 
 const EVIL = 'https://elsewhere.example'
 
@@ -48,5 +48,20 @@ describe('security headers', () => {
       expect(res.headers.get('x-content-type-options'), path).toBe('nosniff')
       expect(res.headers.get('referrer-policy'), path).toBe('no-referrer')
     }
+  })
+})
+
+describe('admin mailbox', () => {
+  it('masks live password-reset links', async () => {
+    const me = await newMember('masked')
+    await new Client().post('/api/auth/password-reset', { email: me.email })
+    const sent = await waitForMail(me.email, /new Scholium password/)
+    const token = /\/password-reset\/([A-Za-z0-9_-]+)/.exec(sent.text)![1]!
+    const admin = await demoClient('admin')
+    const res = await admin.get('/api/admin/mail')
+    expect(res.status).toBe(200)
+    const shown = res.body.messages.find((m: { id: string }) => m.id === sent.id)
+    expect(shown.text).toContain('/password-reset/[hidden]')
+    expect(res.text).not.toContain(token)
   })
 })
