@@ -45,6 +45,7 @@ export {
 } from './schubert-basis'
 export * from './symmetric'
 export * from './skew'
+export * from './grassmannian'
 export * from './stanley'
 export * from './back-stable'
 export * from './determinant'
