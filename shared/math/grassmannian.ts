@@ -26,16 +26,16 @@
  */
 import { type Partition, type SchurCombination, partitionKey, partitionFromKey, toPartition, schurProduct } from './symmetric'
 import { InvalidArgumentError } from './errors'
-import { addChecked, mulChecked } from './coefficient'
+import { addChecked, mulChecked, negateCoefficient, type Coefficient } from './coefficient'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 
-export type QuantumCombination = Map<string, number>
+export type QuantumCombination = Map<string, Coefficient>
 
 /** One term c · q^d σ_λ of a quantum product. */
 export interface QuantumTerm {
   qDegree: number
   partition: Partition
-  coefficient: number
+  coefficient: Coefficient
 }
 
 function checkGrassmannian(k: number, n: number): void {
@@ -57,7 +57,7 @@ function boxPartition(lambda: readonly number[], k: number, n: number): Partitio
   return lam
 }
 
-function addInto(out: Map<string, number>, key: string, c: number): void {
+function addInto(out: Map<string, Coefficient>, key: string, c: Coefficient): void {
   const v = addChecked(out.get(key) ?? 0, c)
   if (v === 0) out.delete(key)
   else out.set(key, v)
@@ -119,7 +119,7 @@ export function giambelliDeterminant(lambda: readonly number[], k: number, n: nu
   const used = new Array<boolean>(l).fill(false)
   const rec = (i: number, sign: number, acc: SchurCombination): void => {
     if (acc.size === 0) return
-    if (i === l) { for (const [key, c] of acc) addInto(out, key, sign * c); return }
+    if (i === l) { for (const [key, c] of acc) addInto(out, key, sign > 0 ? c : negateCoefficient(c)); return }
     let inversions = 0
     for (let j = l - 1; j >= 0; j--) {
       if (used[j]) { inversions++; continue }
@@ -145,7 +145,7 @@ export function grassmannianPower(lambda: readonly number[], m: number, k: numbe
 }
 
 /** ∫_{Gr(k,n)} of a class: the coefficient of the point class σ_{(n−k)^k}. */
-export function grassmannianIntegral(c: SchurCombination, k: number, n: number): number {
+export function grassmannianIntegral(c: SchurCombination, k: number, n: number): Coefficient {
   checkGrassmannian(k, n)
   return c.get(partitionKey(new Array<number>(k).fill(n - k))) ?? 0
 }
@@ -226,7 +226,7 @@ export function quantumProduct(lambda: readonly number[], mu: readonly number[],
   const out: QuantumCombination = new Map()
   for (const [key, c] of schurProduct(lam, m, { maxRows: k, budget })) {
     const r = rimHookReduce(partitionFromKey(key), k, n)
-    if (r) addInto(out, quantumKey(r.qDegree, r.partition), r.sign * c)
+    if (r) addInto(out, quantumKey(r.qDegree, r.partition), r.sign > 0 ? c : negateCoefficient(c))
   }
   return out
 }

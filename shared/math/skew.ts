@@ -17,14 +17,14 @@
  */
 import { type Partition, type SchurCombination, partitionKey, toPartition } from './symmetric'
 import { InvalidArgumentError } from './errors'
-import { addChecked } from './coefficient'
+import { addChecked, type Coefficient } from './coefficient'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 
 /** One term c · s_μ ⊗ s_ν of a coproduct. */
 export interface CoproductTerm {
   left: Partition
   right: Partition
-  coefficient: number
+  coefficient: Coefficient
 }
 
 /** True when μ ⊆ λ as Young diagrams; e.g. `containsPartition([3,1], [2,1]) === true`. */
@@ -91,7 +91,7 @@ export function skewSchurExpansion(lambda: readonly number[], mu: readonly numbe
 }
 
 /** Skew Littlewood–Richardson coefficient c^λ_{μν} = ⟨s_{λ/μ}, s_ν⟩; e.g. c^{21}_{1,1} = 1. */
-export function skewCoefficient(lambda: readonly number[], mu: readonly number[], nu: readonly number[]): number {
+export function skewCoefficient(lambda: readonly number[], mu: readonly number[], nu: readonly number[]): Coefficient {
   return skewSchurExpansion(lambda, mu).get(partitionKey(toPartition(nu))) ?? 0
 }
 

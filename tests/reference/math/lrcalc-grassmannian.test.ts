@@ -27,7 +27,7 @@ function parse(out: string): { c: number; nu: Partition }[] {
 }
 
 const size = (p: readonly number[]) => p.reduce((s, a) => s + a, 0)
-const sorted = (m: Map<string, number>) => [...m].sort((a, b) => a[0].localeCompare(b[0]))
+const sorted = (m: ReadonlyMap<string, number | bigint>) => [...m].sort((a, b) => a[0].localeCompare(b[0]))
 
 /** Partitions in the k × (n−k) box. */
 function box(k: number, n: number): Partition[] {

@@ -13,7 +13,7 @@ function box(k: number, n: number): Partition[] {
 }
 
 const single = (p: Partition): SchurCombination => new Map([[partitionKey(p), 1]])
-const sorted = (m: Map<string, number>) => [...m].sort((a, b) => a[0].localeCompare(b[0]))
+const sorted = (m: ReadonlyMap<string, number | bigint>) => [...m].sort((a, b) => a[0].localeCompare(b[0]))
 
 /** A Grassmannian with 2 ≤ n ≤ 8 and three classes in its box. */
 const grassmannianAndClasses = fc.integer({ min: 2, max: 8 }).chain(n => fc.integer({ min: 1, max: n - 1 }).chain(k => {
