@@ -18,7 +18,7 @@
 import { Permutation, isGrassmannian } from './permutation'
 import { schubertPolynomial, transitionStep } from './schubert'
 import { partitionKey, schurExpansion, type SchurCombination } from './symmetric'
-import { addChecked, type Coefficient } from './coefficient'
+import { addChecked } from './coefficient'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 
 /** F_w in the Schur basis; e.g. F_{21} = s_1, F_{2143} = s_2 + s_{11}. */
