@@ -59,7 +59,7 @@ function claim(kind: number): string {
       const a = PARTITIONS[randomInt(0, PARTITIONS.length - 1)]!
       const b = PARTITIONS[randomInt(0, PARTITIONS.length - 1)]!
       const nu = [...schurProduct(a, b).keys()][0]!.split(',').map(Number)
-      return `$c^{${part(nu)}}_{${part(a)},${part(b)}} = ${littlewoodRichardson(nu, a, b) + (wrongNow() ? 1 : 0)}$`
+      return `$c^{${part(nu)}}_{${part(a)},${part(b)}} = ${BigInt(littlewoodRichardson(nu, a, b)) + (wrongNow() ? 1n : 0n)}$`
     }
     case 8: { // a length
       const w = randomPermutation(randomInt(4, 6), 10)

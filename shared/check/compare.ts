@@ -12,7 +12,7 @@ import type { ClaimDiff, DiffTerm, DiffWrongCoefficient } from '../types/report'
 import { DIFF_LIMIT } from '../types/report'
 import {
   combinationEntries, monomialLatex, partitionFromKey, Permutation, polynomialDifference, schubertAtOnes, schubertExpansion,
-  schubertProduct, type SchubertCombination, type SchurCombination,
+  schubertProduct, addChecked, mulChecked, absCoefficient, toCoefficient, type Coefficient, type SchubertCombination, type SchurCombination,
 } from '../math'
 import { evaluate, permutationOf, type EvaluationEnv } from './evaluate'
 import { toPolynomial, UnsupportedClaimError, type Value } from './values'
@@ -67,7 +67,7 @@ export function compareSides(lhs: Expr, rhs: Expr, env: EvaluationEnv): Comparis
 
 function schurOf(v: Value): SchurCombination {
   if (v.kind === 'symmetric') return v.schur
-  if (v.kind === 'number') return v.value === 0n ? new Map() : new Map([['', Number(v.value)]])
+  if (v.kind === 'number') return v.value === 0n ? new Map() : new Map([['', toCoefficient(v.value)]])
   throw new UnsupportedClaimError('one side is a symmetric function in infinitely many variables and the other a polynomial in finitely many; write s_λ(x_1,…,x_n) to compare them')
 }
 
@@ -119,20 +119,20 @@ function writtenSchubertCombination(expr: Expr, env: EvaluationEnv, expansion = 
   const out: SchubertCombination = new Map()
   const addTerm = (term: Expr, sign: number): boolean => {
     if (term.type === 'negate') return addTerm(term.arg, -sign)
-    let coefficient = sign
+    let coefficient: Coefficient = sign
     let schubert: Expr | undefined
     if (term.type === 'multiply' && term.factors.length === 2) {
       const [a, b] = term.factors as [Expr, Expr]
       const [number, object] = a.type === 'integer' ? [a, b] : b.type === 'integer' ? [b, a] : [undefined, undefined]
       if (!number || number.type !== 'integer') return false
-      coefficient *= Number(number.value)
+      coefficient = mulChecked(coefficient, toCoefficient(BigInt(number.value)))
       schubert = object
     }
     else schubert = term
     if (schubert?.type !== 'schubert' || schubert.variant !== 'single') return false
     const w = permutationOf(schubert.perm)
     const key = (env.conventions.indexing === 'perm-inverse' ? w.inverse() : w).key
-    const next = (out.get(key) ?? 0) + coefficient
+    const next = addChecked(out.get(key) ?? 0, coefficient)
     if (next === 0) out.delete(key)
     else out.set(key, next)
     return true
@@ -155,7 +155,7 @@ function schubertCombinationOfSide(expr: Expr, env: EvaluationEnv): SchubertComb
   return schubertExpansion(toPolynomial(evaluate(expr, env)), { budget: env.meter })
 }
 
-function combinationComparison(computed: Map<string, number>, claimed: Map<string, number>, basis: 'schubert' | 'schur', latex: (key: string) => string): Comparison {
+function combinationComparison(computed: Map<string, Coefficient>, claimed: Map<string, Coefficient>, basis: 'schubert' | 'schur', latex: (key: string) => string): Comparison {
   const missing: DiffTerm[] = []
   const extra: DiffTerm[] = []
   const wrong: DiffWrongCoefficient[] = []
@@ -186,7 +186,7 @@ function oneLineLatex(line: readonly number[]): string {
   return line.some(v => v > 9) ? `[${line.join(',')}]` : line.join('')
 }
 
-function combinationLatex(combination: Map<string, number>, latex: (key: string) => string): string {
+function combinationLatex(combination: Map<string, Coefficient>, latex: (key: string) => string): string {
   if (combination.size === 0) return '0'
   const keys = [...combination.keys()]
   const ordered = latex === schubertTermLatex
@@ -195,12 +195,12 @@ function combinationLatex(combination: Map<string, number>, latex: (key: string)
   return ordered.map((key, i) => {
     const c = combination.get(key)!
     const sign = c < 0 ? ' - ' : i === 0 ? '' : ' + '
-    const magnitude = Math.abs(c) === 1 ? '' : `${Math.abs(c)}\\,`
+    const magnitude = absCoefficient(c) === 1 ? '' : `${absCoefficient(c)}\\,`
     return `${i === 0 && c < 0 ? '-' : sign}${magnitude}${latex(key)}`
   }).join('')
 }
 
-function monomialTerm(x: readonly number[], y: readonly number[], coefficient: number): DiffTerm {
+function monomialTerm(x: readonly number[], y: readonly number[], coefficient: Coefficient): DiffTerm {
   return { term: monomialLatex(x, y) || '1', coefficient: String(coefficient) }
 }
 

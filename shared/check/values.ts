@@ -8,7 +8,7 @@
  *   a symmetric function with a polynomial in finitely many x would silently truncate.
  */
 import {
-  multiplySchurCombinations, partitionKey, Polynomial, type BudgetMeter, type SchurCombination,
+  multiplySchurCombinations, partitionKey, Polynomial, addChecked, negateCoefficient, toCoefficient, type BudgetMeter, type SchurCombination,
 } from '../math'
 
 export type Value =
@@ -23,6 +23,9 @@ export class UnsupportedClaimError extends Error {
 
 export const numberValue = (value: bigint | number): Value => ({ kind: 'number', value: BigInt(value) })
 
+/** Past 2^53 coefficients are exact bigints (the engine's Coefficient), never rounded. */
+const safeNumber = toCoefficient
+
 export function toPolynomial(v: Value): Polynomial {
   if (v.kind === 'polynomial') return v.poly
   if (v.kind === 'number') return Polynomial.constant(safeNumber(v.value))
@@ -35,12 +38,6 @@ function toSymmetric(v: Value): SchurCombination {
   throw new UnsupportedClaimError('a polynomial in finitely many variables cannot be combined with a symmetric function in infinitely many')
 }
 
-function safeNumber(n: bigint): number {
-  if (n > BigInt(Number.MAX_SAFE_INTEGER) || n < -BigInt(Number.MAX_SAFE_INTEGER)) {
-    throw new UnsupportedClaimError('an integer in this claim exceeds 2^53 and cannot be a polynomial coefficient')
-  }
-  return Number(n)
-}
 
 function combine(a: Value, b: Value): 'number' | 'polynomial' | 'symmetric' {
   if (a.kind === 'number' && b.kind === 'number') return 'number'
@@ -80,8 +77,7 @@ export function powerValue(a: Value, exponent: number, meter: BudgetMeter): Valu
 function addSchur(a: SchurCombination, b: SchurCombination, sign: 1 | -1): SchurCombination {
   const out = new Map(a)
   for (const [key, c] of b) {
-    const next = (out.get(key) ?? 0) + sign * c
-    if (!Number.isSafeInteger(next)) throw new UnsupportedClaimError('a Schur coefficient exceeds 2^53')
+    const next = addChecked(out.get(key) ?? 0, sign > 0 ? c : negateCoefficient(c))
     if (next === 0) out.delete(key)
     else out.set(key, next)
   }

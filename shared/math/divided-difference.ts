@@ -10,6 +10,7 @@
  * - For a word a_1…a_k, ∂_{a_1…a_k} = ∂_{a_1} ∘ ⋯ ∘ ∂_{a_k}; ∂_w for a reduced word of w
  *   does not depend on the word chosen.
  */
+import { negateCoefficient, type Coefficient } from './coefficient'
 import { Polynomial, accumulate, decodeMonomial, encodeMonomial } from './polynomial'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 import { InvalidArgumentError } from './errors'
@@ -18,7 +19,7 @@ import { InvalidArgumentError } from './errors'
 export function dividedDifference(f: Polynomial, i: number, set: 'x' | 'y' = 'x', budget?: Budget | BudgetMeter): Polynomial {
   if (!Number.isInteger(i) || i < 1) throw new InvalidArgumentError(`∂_i needs i ≥ 1, got ${i}`)
   const meter = budget === undefined ? undefined : toMeter(budget)
-  const acc = new Map<string, number>()
+  const acc = new Map<string, Coefficient>()
   for (const [k, c] of f.terms) {
     const e = decodeMonomial(k)
     const v = set === 'x' ? e.x : e.y
@@ -31,7 +32,7 @@ export function dividedDifference(f: Polynomial, i: number, set: 'x' | 'y' = 'x'
     for (let t = 0; t < hi - lo; t++) {
       v[i - 1] = hi - 1 - t
       v[i] = lo + t
-      accumulate(acc, encodeMonomial(e.x, e.y), sign * c)
+      accumulate(acc, encodeMonomial(e.x, e.y), sign > 0 ? c : negateCoefficient(c))
     }
   }
   meter?.terms(acc.size)

@@ -44,6 +44,8 @@ export {
   doubleSchubertProduct,
 } from './schubert-basis'
 export * from './symmetric'
+export * from './skew'
+export * from './grassmannian'
 export * from './stanley'
 export * from './back-stable'
 export * from './determinant'

@@ -9,6 +9,7 @@
  * beyond. Coefficients stay exact: before each step the sum of absolute values of
  * all contributions is bounded below 2^53, otherwise CoefficientOverflowError.
  */
+import type { Coefficient } from './coefficient'
 import { CoefficientOverflowError, InvalidArgumentError } from './errors'
 import { Polynomial, encodeMonomial } from './polynomial'
 import type { BudgetMeter } from './budget'
@@ -154,7 +155,7 @@ export class PackedContext {
 
   /** Convert to the general sparse form. */
   toPolynomial(f: PackedPolynomial): Polynomial {
-    const m = new Map<string, number>()
+    const m = new Map<string, Coefficient>()
     for (let t = 0; t < f.codes.length; t++) m.set(encodeMonomial(this.exponents(f.codes[t]!)), f.coefficients[t]!)
     return new Polynomial(m)
   }

@@ -7,8 +7,8 @@
  *   one UTF-16 code unit per exponent of x (trailing zeros dropped), then, if
  *   some y-exponent is nonzero, the separator U+FFFF and the y-exponents
  *   (trailing zeros dropped). Exponents are limited to 0..65534.
- * - Coefficients are JavaScript numbers, always nonzero safe integers; every
- *   operation is checked (see coefficient.ts) and throws on overflow.
+ * - Coefficients are exact nonzero integers (coefficient.ts): numbers while safe, bigints past
+ *   2^53 − 1, always in canonical form, so `===` on coefficients is value equality.
  * - Values are canonical after every operation: no zero coefficients, keys
  *   normalised, so structural equality is polynomial equality.
  * - The zero polynomial has degree −Infinity.
@@ -16,7 +16,7 @@
  *   x-exponent vectors lexicographically descending (x_1 first), then the
  *   y-exponent vectors likewise. E.g. `x_{1}^{2}x_{2} + x_{1}x_{3} + x_{2}^{2}`.
  */
-import { addChecked, assertSafeInteger, mulChecked } from './coefficient'
+import { addChecked, mulChecked, negateCoefficient, absCoefficient, toCoefficient, type Coefficient } from './coefficient'
 import { InvalidArgumentError } from './errors'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 
@@ -27,7 +27,7 @@ const SEP_CODE = 0xffff
 export interface Term {
   x: number[]
   y: number[]
-  coefficient: number
+  coefficient: Coefficient
 }
 
 /** Variable name: `{ set: 'x', index: 3 }` is x_3. */
@@ -72,10 +72,10 @@ export function decodeMonomial(key: string): { x: number[]; y: number[] } {
 /** Sparse polynomial in x and y over ℤ. Immutable from the outside. */
 export class Polynomial {
   /** Monomial key → nonzero coefficient. Treat as read-only. */
-  readonly terms: ReadonlyMap<string, number>
+  readonly terms: ReadonlyMap<string, Coefficient>
 
   /** Wraps a map that the caller promises is canonical (no zero coefficients). */
-  constructor(terms: Map<string, number>) {
+  constructor(terms: Map<string, Coefficient>) {
     this.terms = terms
   }
 
@@ -85,8 +85,8 @@ export class Polynomial {
   }
 
   /** The constant c; e.g. `Polynomial.constant(3)`. */
-  static constant(c: number): Polynomial {
-    assertSafeInteger(c)
+  static constant(value: number | bigint): Polynomial {
+    const c = toCoefficient(value)
     return new Polynomial(c === 0 ? new Map() : new Map([['', c]]))
   }
 
@@ -114,18 +114,17 @@ export class Polynomial {
   }
 
   /** c · x^a y^b; e.g. `Polynomial.monomial([2,1], [], 1)` is x_1^2 x_2. */
-  static monomial(x: readonly number[], y: readonly number[] = [], coefficient = 1): Polynomial {
-    assertSafeInteger(coefficient)
+  static monomial(x: readonly number[], y: readonly number[] = [], value: number | bigint = 1): Polynomial {
+    const coefficient = toCoefficient(value)
     if (coefficient === 0) return Polynomial.zero()
     return new Polynomial(new Map([[encodeMonomial(x, y), coefficient]]))
   }
 
   /** Sum of terms (repeated monomials are added); e.g. `fromTerms([{x:[1],y:[],coefficient:2}])`. */
   static fromTerms(terms: Iterable<Term>): Polynomial {
-    const acc = new Map<string, number>()
+    const acc = new Map<string, Coefficient>()
     for (const t of terms) {
-      assertSafeInteger(t.coefficient)
-      accumulate(acc, encodeMonomial(t.x, t.y), t.coefficient)
+      accumulate(acc, encodeMonomial(t.x, t.y), toCoefficient(t.coefficient))
     }
     return new Polynomial(acc)
   }
@@ -147,7 +146,7 @@ export class Polynomial {
   }
 
   /** Coefficient of x^a y^b (0 when absent). */
-  coefficientOf(x: readonly number[], y: readonly number[] = []): number {
+  coefficientOf(x: readonly number[], y: readonly number[] = []): Coefficient {
     return this.terms.get(encodeMonomial(x, y)) ?? 0
   }
 
@@ -159,21 +158,21 @@ export class Polynomial {
 
   sub(other: Polynomial): Polynomial {
     const acc = new Map(this.terms)
-    for (const [k, c] of other.terms) accumulate(acc, k, -c)
+    for (const [k, c] of other.terms) accumulate(acc, k, negateCoefficient(c))
     return new Polynomial(acc)
   }
 
   neg(): Polynomial {
-    const acc = new Map<string, number>()
-    for (const [k, c] of this.terms) acc.set(k, -c)
+    const acc = new Map<string, Coefficient>()
+    for (const [k, c] of this.terms) acc.set(k, negateCoefficient(c))
     return new Polynomial(acc)
   }
 
   /** c · this; e.g. `p.scale(-2)`. */
-  scale(c: number): Polynomial {
-    assertSafeInteger(c)
+  scale(value: number | bigint): Polynomial {
+    const c = toCoefficient(value)
     if (c === 0) return Polynomial.zero()
-    const acc = new Map<string, number>()
+    const acc = new Map<string, Coefficient>()
     for (const [k, v] of this.terms) acc.set(k, mulChecked(v, c))
     return new Polynomial(acc)
   }
@@ -183,7 +182,7 @@ export class Polynomial {
     const meter = budget === undefined ? undefined : toMeter(budget)
     const a = [...this.terms].map(([k, c]) => ({ e: decodeMonomial(k), c }))
     const b = [...other.terms].map(([k, c]) => ({ e: decodeMonomial(k), c }))
-    const acc = new Map<string, number>()
+    const acc = new Map<string, Coefficient>()
     for (const s of a) {
       meter?.step(b.length)
       for (const t of b) {
@@ -232,7 +231,7 @@ export class Polynomial {
 
   /** Part of total degree d. */
   homogeneousComponent(d: number): Polynomial {
-    const acc = new Map<string, number>()
+    const acc = new Map<string, Coefficient>()
     for (const [k, c] of this.terms) if (keyDegree(k) === d) acc.set(k, c)
     return new Polynomial(acc)
   }
@@ -285,17 +284,17 @@ export class Polynomial {
 
   /** y_j ↦ −y_j for all j (switches between the x − y and x + y conventions). */
   negateY(): Polynomial {
-    const acc = new Map<string, number>()
+    const acc = new Map<string, Coefficient>()
     for (const [k, c] of this.terms) {
       const e = decodeMonomial(k)
-      acc.set(k, sum(e.y) % 2 === 1 ? -c : c)
+      acc.set(k, sum(e.y) % 2 === 1 ? negateCoefficient(c) : c)
     }
     return new Polynomial(acc)
   }
 
   /** Exchange the roles of x and y: x_i ↔ y_i. */
   swapXY(): Polynomial {
-    const acc = new Map<string, number>()
+    const acc = new Map<string, Coefficient>()
     for (const [k, c] of this.terms) {
       const e = decodeMonomial(k)
       acc.set(encodeMonomial(e.y, e.x), c)
@@ -305,7 +304,7 @@ export class Polynomial {
 
   /** Rename x_i ↦ x_{i+m} (and leave y); e.g. shifting before embedding into more variables. */
   shiftX(m: number): Polynomial {
-    const acc = new Map<string, number>()
+    const acc = new Map<string, Coefficient>()
     for (const [k, c] of this.terms) {
       const e = decodeMonomial(k)
       acc.set(encodeMonomial(e.x.length ? [...new Array<number>(m).fill(0), ...e.x] : [], e.y), c)
@@ -315,7 +314,7 @@ export class Polynomial {
 
   /** Set x_i = 0 for i > k (truncation to the first k x-variables). */
   truncateX(k: number): Polynomial {
-    const acc = new Map<string, number>()
+    const acc = new Map<string, Coefficient>()
     for (const [key, c] of this.terms) {
       const e = decodeMonomial(key)
       if (e.x.length <= k) acc.set(key, c)
@@ -338,7 +337,7 @@ export class Polynomial {
 
   /** Apply the transposition of variables i ↔ i+1 in one set. */
   swapVariables(set: 'x' | 'y', i: number): Polynomial {
-    const acc = new Map<string, number>()
+    const acc = new Map<string, Coefficient>()
     for (const [k, c] of this.terms) {
       const e = decodeMonomial(k)
       const v = set === 'x' ? e.x : e.y
@@ -369,7 +368,7 @@ export class Polynomial {
     let out = ''
     list.slice(0, maxTerms).forEach((t, idx) => {
       const mono = monomialLatex(t.x, t.y)
-      const abs = Math.abs(t.coefficient)
+      const abs = absCoefficient(t.coefficient)
       const body = mono === '' ? String(abs) : abs === 1 ? mono : `${abs}${mono}`
       if (idx === 0) out += t.coefficient < 0 ? `-${body}` : body
       else out += t.coefficient < 0 ? ` - ${body}` : ` + ${body}`
@@ -399,7 +398,7 @@ export interface PolynomialDifference {
   /** In actual, absent from expected. */
   extra: Term[]
   /** Present in both with different coefficients. */
-  wrongCoefficient: { x: number[]; y: number[]; expected: number; actual: number }[]
+  wrongCoefficient: { x: number[]; y: number[]; expected: Coefficient; actual: Coefficient }[]
 }
 
 /** Compare an expected polynomial with an actual one term by term; e.g. `polynomialDifference(claim, truth)`. */
@@ -425,7 +424,7 @@ export function polynomialDifference(expected: Polynomial, actual: Polynomial): 
 }
 
 /** Add c into acc[key], deleting the entry when it cancels. */
-export function accumulate(acc: Map<string, number>, key: string, c: number): void {
+export function accumulate(acc: Map<string, Coefficient>, key: string, c: Coefficient): void {
   const old = acc.get(key)
   if (old === undefined) {
     if (c !== 0) acc.set(key, c)

@@ -18,13 +18,13 @@ import { Permutation } from './permutation'
 import { Polynomial, accumulate, decodeMonomial, encodeMonomial } from './polynomial'
 import { doubleSchubertPolynomial, packedSchubert, schubertPolynomial, transitionStep } from './schubert'
 import { NotInSpanError } from './errors'
-import { addChecked, mulChecked } from './coefficient'
+import { addChecked, mulChecked, negateCoefficient, type Coefficient } from './coefficient'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 
-export type SchubertCombination = Map<string, number>
+export type SchubertCombination = Map<string, Coefficient>
 
 /** Sorted list form of a combination: longest permutations first, then by one-line. */
-export function combinationEntries(c: SchubertCombination): { permutation: Permutation; coefficient: number }[] {
+export function combinationEntries(c: SchubertCombination): { permutation: Permutation; coefficient: Coefficient }[] {
   return [...c]
     .map(([k, coefficient]) => ({ permutation: Permutation.fromOneLine(k === '' ? [] : k.split(',').map(Number)), coefficient }))
     .sort((a, b) => b.permutation.length() - a.permutation.length() || a.permutation.key.localeCompare(b.permutation.key))
@@ -107,7 +107,7 @@ export function doubleSchubertExpansion(f: Polynomial, options: { within?: numbe
     }
     const bestX = encodeMonomial(best!)
     // c(y): all terms whose x-part is exactly x^best
-    const coeff = new Map<string, number>()
+    const coeff = new Map<string, Coefficient>()
     for (const [k, c] of rest) {
       const e = decodeMonomial(k)
       if (encodeMonomial(e.x) === bestX) coeff.set(encodeMonomial([], e.y), c)
@@ -143,7 +143,7 @@ function fromInternal(k: string): string {
   return vals.join(',')
 }
 
-function addTo(m: Map<string, number>, k: string, c: number): void {
+function addTo(m: Map<string, Coefficient>, k: string, c: Coefficient): void {
   const old = m.get(k)
   if (old === undefined) m.set(k, c)
   else {
@@ -154,8 +154,8 @@ function addTo(m: Map<string, number>, k: string, c: number): void {
 }
 
 /** x_r · Σ c_w S_w, as a combination (internal keys). */
-function multiplyByVariable(r: number, comb: Map<string, number>, meter: BudgetMeter): Map<string, number> {
-  const out = new Map<string, number>()
+function multiplyByVariable(r: number, comb: Map<string, Coefficient>, meter: BudgetMeter): Map<string, Coefficient> {
+  const out = new Map<string, Coefficient>()
   for (const [key, c] of comb) {
     const n = key.length
     const at = (j: number): number => (j <= n ? key.charCodeAt(j - 1) : j)
@@ -176,7 +176,7 @@ function multiplyByVariable(r: number, comb: Map<string, number>, meter: BudgetM
       const wq = at(q)
       if (wq < wr && wq > M) {
         M = wq
-        addTo(out, swapKey(key, q, r), -c)
+        addTo(out, swapKey(key, q, r), negateCoefficient(c))
       }
     }
     meter.step(top)
@@ -208,7 +208,7 @@ export function schubertProduct(u: Permutation, v: Permutation, budget?: Budget 
 export function schubertProductByHorner(u: Permutation, v: Permutation, budget?: Budget | BudgetMeter): SchubertCombination {
   const meter = toMeter(budget)
   const [monos, other] = pickPolynomialSide(u, v, meter)
-  const start = new Map<string, number>([[toInternal(other), 1]])
+  const start = new Map<string, Coefficient>([[toInternal(other), 1]])
   const order: number[] = []
   const maxVar = monos.reduce((m, t) => Math.max(m, t.e.length), 0)
   for (let i = 1; i <= maxVar; i++) order.push(i)
@@ -230,11 +230,11 @@ function pickPolynomialSide(u: Permutation, v: Permutation, meter: BudgetMeter):
 }
 
 /** Σ_m c_m x^{e_m} restricted to variables ≥ i, times the combination `base`, in Horner form over x_i. */
-function horner(monos: Mono[], order: readonly number[], depth: number, base: Map<string, number>, meter: BudgetMeter): Map<string, number> {
+function horner(monos: Mono[], order: readonly number[], depth: number, base: Map<string, Coefficient>, meter: BudgetMeter): Map<string, Coefficient> {
   if (depth === order.length) {
-    let total = 0
+    let total: Coefficient = 0
     for (const m of monos) total = addChecked(total, m.c)
-    const out = new Map<string, number>()
+    const out = new Map<string, Coefficient>()
     if (total !== 0) for (const [k, c] of base) out.set(k, mulChecked(c, total))
     return out
   }
@@ -249,7 +249,7 @@ function horner(monos: Mono[], order: readonly number[], depth: number, base: Ma
     if (!g) { g = []; groups.set(a, g) }
     g.push(m)
   }
-  let acc = new Map<string, number>()
+  let acc = new Map<string, Coefficient>()
   for (let a = top; a >= 0; a--) {
     if (a < top) acc = multiplyByVariable(i, acc, meter)
     const g = groups.get(a)
@@ -270,13 +270,13 @@ export function monkProduct(r: number, w: Permutation): SchubertCombination {
   for (let j = 1; j <= r; j++) for (let k = r + 1; k <= n; k++) {
     const t = Permutation.fromCycles([[j, k]], n)
     const x = line.compose(t)
-    if (x.length() === len + 1) out.set(x.key, (out.get(x.key) ?? 0) + 1)
+    if (x.length() === len + 1) out.set(x.key, addChecked(out.get(x.key) ?? 0, 1))
   }
   return out
 }
 
 /** A single structure constant c_{u,v}^w. */
-export function structureConstant(u: Permutation, v: Permutation, w: Permutation, budget?: Budget | BudgetMeter): number {
+export function structureConstant(u: Permutation, v: Permutation, w: Permutation, budget?: Budget | BudgetMeter): Coefficient {
   if (u.length() + v.length() !== w.length()) return 0
   return schubertProduct(u, v, budget).get(w.key) ?? 0
 }
@@ -292,16 +292,16 @@ export function schubertProductByTransition(u: Permutation, v: Permutation, budg
   const meter = toMeter(budget)
   const ctx = numericContext(u, v)
   if (ctx) return productByTransitionNumeric(u, v, ctx, meter)
-  const memo = new Map<string, Map<string, number>>()
-  const base = new Map<string, number>([[toInternal(v), 1]])
-  const go = (line: number[]): Map<string, number> => {
+  const memo = new Map<string, Map<string, Coefficient>>()
+  const base = new Map<string, Coefficient>([[toInternal(v), 1]])
+  const go = (line: number[]): Map<string, Coefficient> => {
     let n = line.length
     while (n > 0 && line[n - 1] === n) n--
     const key = line.slice(0, n).join(',')
     const hit = memo.get(key)
     if (hit) return hit
     const step = transitionStep(line.slice(0, n))
-    let result: Map<string, number>
+    let result: Map<string, Coefficient>
     if (!step) result = base
     else {
       result = multiplyByVariable(step.r, go(step.v), meter)

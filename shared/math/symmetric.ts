@@ -16,11 +16,11 @@
  */
 import { Polynomial, accumulate, decodeMonomial, encodeMonomial } from './polynomial'
 import { InvalidArgumentError, NotSymmetricError } from './errors'
-import { addChecked, mulChecked } from './coefficient'
+import { addChecked, mulChecked, type Coefficient } from './coefficient'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 
 export type Partition = number[]
-export type SchurCombination = Map<string, number>
+export type SchurCombination = Map<string, Coefficient>
 
 /** Key of a partition; e.g. `partitionKey([3,1]) === "3,1"`. */
 export function partitionKey(lambda: readonly number[]): string {
@@ -151,7 +151,7 @@ export function monomialSymmetric(lambda: readonly number[], n: number): Polynom
   if (lam.length > n) return Polynomial.zero()
   const padded = [...lam, ...new Array<number>(n - lam.length).fill(0)]
   const seen = new Set<string>()
-  const acc = new Map<string, number>()
+  const acc = new Map<string, Coefficient>()
   const perm = (arr: number[], k: number): void => {
     if (k === arr.length) {
       const key = encodeMonomial(arr)
@@ -172,18 +172,18 @@ export function monomialSymmetric(lambda: readonly number[], n: number): Polynom
 }
 
 /** Kostka number K_{λμ}: semistandard tableaux of shape λ and content μ (μ any composition). */
-export function kostkaNumber(lambda: readonly number[], mu: readonly number[]): number {
+export function kostkaNumber(lambda: readonly number[], mu: readonly number[]): Coefficient {
   const lam = toPartition(lambda)
-  const memo = new Map<string, number>()
+  const memo = new Map<string, Coefficient>()
   // Peel the largest letter: remove a horizontal strip of size μ_k from the shape.
-  const go = (shape: Partition, k: number): number => {
+  const go = (shape: Partition, k: number): Coefficient => {
     if (k === 0) return shape.length === 0 ? 1 : 0
     const key = `${k}|${shape.join(',')}`
     const hit = memo.get(key)
     if (hit !== undefined) return hit
     let size = 0
     for (const p of shape) size += p
-    let total = 0
+    let total: Coefficient = 0
     for (const inner of innerHorizontalStrips(shape, k - 1)) {
       let s = 0
       for (const p of inner) s += p
@@ -248,7 +248,7 @@ export function schurProduct(lambda: readonly number[], mu: readonly number[], o
     meter.step()
     if (k > m.length) {
       const key = partitionKey(shape)
-      out.set(key, (out.get(key) ?? 0) + 1)
+      out.set(key, addChecked(out.get(key) ?? 0, 1))
       meter.terms(out.size, 'partitions')
       return
     }
@@ -279,7 +279,7 @@ export function schurProduct(lambda: readonly number[], mu: readonly number[], o
 }
 
 /** Littlewood–Richardson coefficient c^ν_{λμ}; e.g. c^{321}_{21,21} = 2. */
-export function littlewoodRichardson(nu: readonly number[], lambda: readonly number[], mu: readonly number[]): number {
+export function littlewoodRichardson(nu: readonly number[], lambda: readonly number[], mu: readonly number[]): Coefficient {
   return schurProduct(lambda, mu).get(partitionKey(toPartition(nu))) ?? 0
 }
 
@@ -319,7 +319,7 @@ export function schurCombinationsEqual(a: SchurCombination, b: SchurCombination)
 }
 
 /** Sorted entries (largest partitions in lexicographic order first). */
-export function schurEntries(c: SchurCombination): { partition: Partition; coefficient: number }[] {
+export function schurEntries(c: SchurCombination): { partition: Partition; coefficient: Coefficient }[] {
   return [...c].map(([k, coefficient]) => ({ partition: partitionFromKey(k), coefficient }))
     .sort((a, b) => compareLex(b.partition, a.partition))
 }

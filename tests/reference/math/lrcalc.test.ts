@@ -40,7 +40,7 @@ function schubmult(u: Permutation, v: Permutation): Map<string, number> {
   return parseLines(out, 'perm')
 }
 
-function sorted(m: Map<string, number>): [string, number][] {
+function sorted(m: ReadonlyMap<string, number | bigint>): [string, number | bigint][] {
   return [...m].sort((a, b) => a[0].localeCompare(b[0]))
 }
 

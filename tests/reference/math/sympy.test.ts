@@ -48,8 +48,8 @@ data = json.loads(sys.stdin.read())
 print(json.dumps([schubert(item['w'], item['double']) for item in data]))
 `
 
-function toTermMap(p: Polynomial, n: number): Map<string, number> {
-  const m = new Map<string, number>()
+function toTermMap(p: Polynomial, n: number): Map<string, number | bigint> {
+  const m = new Map<string, number | bigint>()
   for (const t of p.termList()) {
     const ex = Array.from({ length: n }, (_, i) => t.x[i] ?? 0)
     const ey = Array.from({ length: n }, (_, i) => t.y[i] ?? 0)

@@ -57,10 +57,21 @@ describe('ring operations', () => {
     expect(q.substitute(v => (v.set === 'y' ? Polynomial.constant(0) : undefined)).equals(x(1))).toBe(true)
     expect(q.swapXY().equals(y(1).sub(x(1)))).toBe(true)
   })
-  it('refuses to round: overflow throws a typed error', () => {
+  it('past 2^53 coefficients switch to BigInt exactly (regression: they used to throw); (x_1+x_2)^70 has the binomial coefficients C(70,k), computed in BigInt here', () => {
     const big = Polynomial.constant(2 ** 52)
-    expect(() => big.add(big).add(big)).toThrow(CoefficientOverflowError)
-    expect(() => big.mul(Polynomial.constant(4))).toThrow(CoefficientOverflowError)
+    expect(big.add(big).add(big).terms.get('')).toBe(3n * 2n ** 52n)
+    expect(big.mul(Polynomial.constant(4)).terms.get('')).toBe(2n ** 54n)
+    expect(big.add(big).sub(big).sub(big).isZero()).toBe(true)
+    const p = x(1).add(x(2)).pow(70)
+    let binom = 1n
+    for (let k = 0; k <= 70; k++) {
+      const c = p.coefficientOf([70 - k, k])
+      expect(BigInt(c), `C(70,${k})`).toBe(binom)
+      // canonical form: a number exactly when the value is safe
+      expect(typeof c).toBe(binom <= BigInt(Number.MAX_SAFE_INTEGER) ? 'number' : 'bigint')
+      binom = binom * BigInt(70 - k) / BigInt(k + 1)
+    }
+    expect(() => Polynomial.constant(2 ** 60)).toThrow(CoefficientOverflowError)
   })
   it('symmetry tests', () => {
     const e2 = x(1).mul(x(2)).add(x(1).mul(x(3))).add(x(2).mul(x(3)))
