@@ -356,13 +356,16 @@ export class SideParser {
     this.recognised = true
     const what = type === 'schubert' ? '\\mathfrak{S}' : '\\mathfrak{G}'
     const { sub, sup } = this.readScripts()
-    if (sup) throw new ParseFail(`superscript on ${what} is not supported`)
+    // A superscript that is a non-negative integer is a power (\mathfrak{S}_{132}^2); any other
+    // superscript (\mathfrak{G}^{(\beta)}, \mathfrak{S}^{(n)}) is a different object.
+    const exponent = sup ? readInteger(sup) : undefined
+    if (sup && exponent === undefined) throw new ParseFail(`superscript on ${what} is not supported`)
     const perm = this.permutationFromScript(sub, what)
     const args = this.variableArguments()
     this.meaningful = true
     const obj: Expr = { type, perm, variant: args.kind === 'double' ? 'double' : 'single' }
-    if (args.kind === 'ones') return { type: 'evaluateAtOnes', arg: obj, variableCount: args.count }
-    return obj
+    const value: Expr = args.kind === 'ones' ? { type: 'evaluateAtOnes', arg: obj, variableCount: args.count } : obj
+    return exponent === undefined ? value : { type: 'power', base: value, exponent }
   }
 
   /**
@@ -406,18 +409,17 @@ export class SideParser {
     if (!sub) throw new ParseFail(`unknown symbol ${letterNode ? letter : 'macro'}`)
     if (sup) this.i -= 2
     this.recognised = true
-    let index: Partition
-    if (family === 'elementary' || family === 'complete' || family === 'powerSum') {
-      const k = readInteger(sub)
-      if (k === undefined) throw new ParseFail(`index ${describeNodes(sub)} of ${letter} is not an integer`)
-      index = k === 0 ? [] : [k]
-    } else index = readPartition(sub, this.ctx, this.used)
+    const multiplicative = family === 'elementary' || family === 'complete' || family === 'powerSum'
+    const index = multiplicative ? readMultiplicativeIndex(sub, this.ctx, this.used) : readPartition(sub, this.ctx, this.used)
     const args = this.variableArguments()
     this.meaningful = true
-    const obj: Expr = { type: 'symmetric', family, index }
-    if (args.kind === 'single' && args.count !== undefined) obj.variableCount = args.count
+    let variableCount: number | undefined
+    if (args.kind === 'single' && args.count !== undefined) variableCount = args.count
     else if (args.kind === 'single') throw new ParseFail(`number of variables of ${letter}_{…}(x_1,…) is unclear; write x_1,\\dots,x_4`)
     else if (args.kind === 'double') throw new ParseFail(`${letter} in two sets of variables is not supported`)
+    const single = (parts: Partition): Expr => (variableCount === undefined ? { type: 'symmetric', family, index: parts } : { type: 'symmetric', family, index: parts, variableCount })
+    // e_λ, h_λ, p_λ are products over the parts of λ: e_{21} = e_2 e_1.
+    const obj: Expr = multiplicative && index.length > 1 ? { type: 'multiply', factors: index.map(part => single([part])) } : single(index)
     if (args.kind === 'ones') return { type: 'evaluateAtOnes', arg: obj, variableCount: args.count }
     return obj
   }
@@ -606,6 +608,21 @@ function isDots(item: MathNode[]): boolean {
   const ns = unwrap(item)
   if (ns.length === 1 && ns[0]!.k === 'cs' && ['dots', 'ldots', 'cdots', 'dotsc', 'dotsb'].includes(ns[0]!.v)) return true
   return ns.length === 3 && ns.every(n => isCh(n, '.'))
+}
+
+/**
+ * The index of e, h or p: one digit (`e_3`), an
+ * integer symbol the paper bound ("Let $k = 3$"), or a partition (`e_{21}`, `h_{(2,2)}`, bound λ).
+ * Digits written together are parts, as for s_λ: `e_{21}` is e_{(2,1)}, never e with index 21.
+ */
+function readMultiplicativeIndex(nodes: MathNode[], ctx: ParseContext, used: Map<string, ContextValue>): Partition {
+  const sym = lookupSymbol(nodes, ctx)
+  if (sym?.value?.kind === 'integer') {
+    used.set(sym.name, sym.value)
+    if (sym.value.value < 0) throw new ParseFail(`${sym.name} = ${sym.value.value} is negative`)
+    return sym.value.value === 0 ? [] : [sym.value.value]
+  }
+  return readPartition(nodes, ctx, used)
 }
 
 /** Split `u,v` or `\lambda\mu` (two symbols) into two node lists. */
