@@ -44,6 +44,7 @@ export {
   doubleSchubertProduct,
 } from './schubert-basis'
 export * from './symmetric'
+export * from './skew'
 export * from './stanley'
 export * from './back-stable'
 export * from './determinant'
