@@ -16,7 +16,7 @@ import type { ConventionSet } from '../types/conventions'
 import {
   BudgetMeter, completeSymmetric, conjugate, countBumplessPipeDreams, countPipeDreams, countReducedWords, determinant,
   dividedDifference, doubleSchubertPolynomial, elementarySymmetric, grothendieckPolynomial, kostkaNumber, littlewoodRichardson,
-  monomialSymmetric, partitionKey, Permutation, Polynomial, powerSum, schubertPolynomial, schurCombinationToPolynomial,
+  monomialSymmetric, partitionKey, Permutation, Polynomial, powerSum, schubertPolynomial, schurCombinationToPolynomial, skewSchurExpansion,
   schurExpansion, schurPolynomial, stanleySymmetricFunction, structureConstant, toPartition, type SchurCombination,
 } from '../math'
 import { addValues, multiplyValues, negateValue, numberValue, powerValue, toPolynomial, UnsupportedClaimError, type Value } from './values'
@@ -132,6 +132,13 @@ function schubertValue(w: Permutation, double: boolean, env: EvaluationEnv): Pol
 function symmetricValue(expr: Extract<Expr, { type: 'symmetric' }>, env: EvaluationEnv): Value {
   const n = expr.variableCount
   const k = expr.index[0] ?? 0
+  if (expr.skew) {
+    // s_{λ/μ} = Σ_ν c^λ_{μν} s_ν; in n variables only ν with at most n rows survive.
+    const lambda = partitionIn(expr.index, env)
+    const mu = partitionIn(expr.skew, env)
+    const schur = remember(env, `skew|${partitionKey(lambda)}/${partitionKey(mu)}`, () => skewSchurExpansion(lambda, mu, { budget: env.meter }))
+    return n === undefined ? { kind: 'symmetric', schur } : { kind: 'polynomial', poly: schurCombinationToPolynomial(schur, n, env.meter) }
+  }
   if (n !== undefined) {
     switch (expr.family) {
       case 'schur': return { kind: 'polynomial', poly: schurPolynomial(partitionIn(expr.index, env), n, env.meter) }

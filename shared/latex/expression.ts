@@ -378,7 +378,7 @@ export class SideParser {
     const content = paren.content
     const groups = splitAt(content, m => isCh(m, ';'))
     const items = groups.flatMap(g => splitCommas(g))
-    const letters = items.map(it => variableLetter(it))
+    const letters = items.map(it => variableLetter(it, this.ctx, this.used))
     let result: { kind: 'none' | 'single' | 'double' | 'ones'; count?: number } | undefined
     if (letters.every(l => l !== undefined)) {
       const set = new Set(letters.map(l => l!.letter))
@@ -410,14 +410,25 @@ export class SideParser {
     if (sup) this.i -= 2
     this.recognised = true
     const multiplicative = family === 'elementary' || family === 'complete' || family === 'powerSum'
-    const index = multiplicative ? readMultiplicativeIndex(sub, this.ctx, this.used) : readPartition(sub, this.ctx, this.used)
+    const skewShape = family === 'schur' ? splitSkewShape(sub) : undefined
+    let skew: Partition | undefined
+    let index: Partition
+    if (skewShape) {
+      index = readPartition(skewShape.outer, this.ctx, this.used)
+      skew = readPartition(skewShape.inner, this.ctx, this.used)
+      if (skew.some((part, row) => part > (index[row] ?? 0))) throw new ParseFail(`(${skew.join(',')}) does not fit inside (${index.join(',')}), so ${letter}_{λ/μ} is not a skew shape`)
+    } else index = multiplicative ? readMultiplicativeIndex(sub, this.ctx, this.used) : readPartition(sub, this.ctx, this.used)
     const args = this.variableArguments()
     this.meaningful = true
     let variableCount: number | undefined
     if (args.kind === 'single' && args.count !== undefined) variableCount = args.count
     else if (args.kind === 'single') throw new ParseFail(`number of variables of ${letter}_{…}(x_1,…) is unclear; write x_1,\\dots,x_4`)
     else if (args.kind === 'double') throw new ParseFail(`${letter} in two sets of variables is not supported`)
-    const single = (parts: Partition): Expr => (variableCount === undefined ? { type: 'symmetric', family, index: parts } : { type: 'symmetric', family, index: parts, variableCount })
+    const single = (parts: Partition): Expr => ({
+      type: 'symmetric', family, index: parts,
+      ...(variableCount === undefined ? {} : { variableCount }),
+      ...(skew && skew.length ? { skew } : {}),
+    })
     // e_λ, h_λ, p_λ are products over the parts of λ: e_{21} = e_2 e_1.
     const obj: Expr = multiplicative && index.length > 1 ? { type: 'multiply', factors: index.map(part => single([part])) } : single(index)
     if (args.kind === 'ones') return { type: 'evaluateAtOnes', arg: obj, variableCount: args.count }
@@ -572,9 +583,10 @@ function splitAt(nodes: MathNode[], isSep: (m: MathNode) => boolean): MathNode[]
   return out
 }
 
-function variableLetter(item: MathNode[]): { letter: 'x' | 'y'; index?: number; dots?: boolean } | undefined {
+/** One entry of a variable list: `x`, `x_3`, `\\mathbf y`, `\\dots`, or `x_n` with n bound to an integer. */
+function variableLetter(item: MathNode[], ctx?: ParseContext, used?: Map<string, ContextValue>): { letter: 'x' | 'y'; index?: number; dots?: boolean } | undefined {
   const ns = unwrap(item).filter(n => !(n.k === 'cs' && (n.v === 'mathbf' || n.v === 'boldsymbol' || n.v === 'bm')))
-  if (ns.length === 1 && ns[0]!.k === 'group') return variableLetter(ns[0]!.children)
+  if (ns.length === 1 && ns[0]!.k === 'group') return variableLetter(ns[0]!.children, ctx, used)
   if (isDots(ns)) return { letter: 'x', dots: true }
   const first = ns[0]
   if (!first) return undefined
@@ -584,6 +596,11 @@ function variableLetter(item: MathNode[]): { letter: 'x' | 'y'; index?: number; 
   if (ns.length === 3 && isCh(ns[1], '_')) {
     const index = readInteger(childrenOf(ns[2]!))
     if (index !== undefined) return { letter, index }
+    const sym = ctx ? lookupSymbol(childrenOf(ns[2]!), ctx) : undefined
+    if (sym?.value?.kind === 'integer') {
+      used?.set(sym.name, sym.value)
+      return { letter, index: sym.value.value }
+    }
     return { letter }
   }
   return undefined
@@ -608,6 +625,40 @@ function isDots(item: MathNode[]): boolean {
   const ns = unwrap(item)
   if (ns.length === 1 && ns[0]!.k === 'cs' && ['dots', 'ldots', 'cdots', 'dotsc', 'dotsb'].includes(ns[0]!.v)) return true
   return ns.length === 3 && ns.every(n => isCh(n, '.'))
+}
+
+/**
+ * A skew shape `λ/μ` in a subscript: `(3,2)/(1)`, `32/1`, `\lambda/\mu`. Exactly one top-level
+ * slash with something on both sides; anything else is not a skew shape.
+ */
+function splitSkewShape(nodes: MathNode[]): { outer: MathNode[]; inner: MathNode[] } | undefined {
+  const parts: MathNode[][] = [[]]
+  let depth = 0
+  for (const n of unwrap(nodes)) {
+    if (isCh(n, '(') || isCh(n, '[')) depth++
+    if (isCh(n, ')') || isCh(n, ']')) depth--
+    if (depth === 0 && isCh(n, '/')) parts.push([])
+    else parts[parts.length - 1]!.push(n)
+  }
+  if (parts.length !== 2 || !parts[0]!.length || !parts[1]!.length) return undefined
+  return { outer: parts[0]!, inner: parts[1]! }
+}
+
+/**
+ * A Young diagram drawn with ytableau's `\ydiagram{2,1}`: the arguments are the row lengths.
+ * In English notation they are listed top row first; a paper in French notation that lists them
+ * bottom row first (as drawn) gives the same weakly decreasing list, so the partition is the
+ * same. A list that is not weakly decreasing (`\ydiagram{1,2}`: English nonsense, or French rows
+ * listed top-down) or a skew diagram (`\ydiagram{1+2,3}`) is left unread: we do not guess.
+ */
+function readYoungDiagram(nodes: MathNode[]): Partition | undefined {
+  const ns = unwrap(nodes)
+  if (!(ns.length === 2 && isCs(ns[0], 'ydiagram') && ns[1]!.k === 'group')) return undefined
+  const rows = splitCommas(ns[1]!.children).map(readInteger)
+  if (!rows.length || rows.some(r => r === undefined || r < 1)) throw new ParseFail('\\ydiagram{…} with offsets or non-numeric rows is not read')
+  const parts = rows as number[]
+  if (parts.some((r, j) => j > 0 && r > parts[j - 1]!)) throw new ParseFail(`\\ydiagram{${parts.join(',')}} does not list weakly decreasing rows; left unread (English or French order is unclear)`)
+  return parts
 }
 
 /**
@@ -761,6 +812,8 @@ function checkOneLine(entries: number[]): PermutationSpec {
 /** Read a partition: `21`, `2,1`, `(2,1)`, `(2,1^2)`, a bound \lambda, or \emptyset. */
 export function readPartition(nodes: MathNode[], ctx: ParseContext, used: Map<string, ContextValue>): Partition {
   let ns = unwrap(nodes)
+  const diagram = readYoungDiagram(ns)
+  if (diagram) return diagram
   const sym = lookupSymbol(ns, ctx)
   if (sym && !isDigit(ns[0])) {
     if (sym.value?.kind === 'partition') {

@@ -50,8 +50,9 @@ export type Expr =
   /**
    * s_λ, e_k, h_k, m_λ, p_k. `index` is the partition (for e, h, p a one-part partition [k]).
    * `variableCount` is n when written in x_1, …, x_n; absent for symmetric functions in infinitely many variables.
+   * `skew` is μ in a skew Schur function s_{λ/μ} (family 'schur' only; λ is `index`).
    */
-  | { type: 'symmetric'; family: SymmetricFamily; index: Partition; variableCount?: number }
+  | { type: 'symmetric'; family: SymmetricFamily; index: Partition; variableCount?: number; skew?: Partition }
   /** Divided difference ∂_i applied to `arg`. */
   | { type: 'dividedDifference'; index: number; arg: Expr }
   /** Determinant of a square matrix of expressions, listed row by row. */
