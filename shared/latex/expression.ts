@@ -270,6 +270,8 @@ export class SideParser {
           return this.symmetric('powerSum', n)
         case 'c':
           return this.coefficient()
+        case 'C':
+          return this.capitalCoefficient()
         case 'K':
           return this.kostka()
         case '|':
@@ -501,7 +503,40 @@ export class SideParser {
     const lower = splitPair(sub)
     if (!lower) throw new ParseFail(`cannot split the subscript of c into two indices; separate them with a comma`)
     this.meaningful = true
-    return readCoefficient(lower[0], lower[1], sup, this.ctx, this.used)
+    const expr = readCoefficient(lower[0], lower[1], sup, this.ctx, this.used)
+    // Indices told apart only by spacing (c^{42}_{21\,21}) are partitions; read them only when
+    // the sizes fit, never as permutations.
+    if (splitBySpacing(sub) && !(expr.type === 'littlewoodRichardson' && sizeOf(expr.nu) === sizeOf(expr.lambda) + sizeOf(expr.mu))) {
+      throw new ParseFail('the indices of c, told apart only by spacing, do not read as partitions with |ν| = |λ| + |μ|')
+    }
+    return expr
+  }
+
+  /**
+   * C^{ν}_{λ,μ}: some papers write the Littlewood–Richardson coefficient with a capital C. A
+   * capital C is read only when all three indices are partitions with |ν| = |λ| + |μ|; otherwise
+   * (a constant, a Schubert structure constant in another paper's notation) it is not read.
+   */
+  private capitalCoefficient(): Expr {
+    const start = this.i
+    const { sub, sup } = this.readScripts()
+    const lower = sub && sup ? splitPair(sub) : undefined
+    if (sub && sup && lower) {
+      const used = new Map<string, ContextValue>()
+      try {
+        const expr = readCoefficient(lower[0], lower[1], sup, this.ctx, used)
+        if (expr.type === 'littlewoodRichardson' && sizeOf(expr.nu) === sizeOf(expr.lambda) + sizeOf(expr.mu)) {
+          this.recognised = true
+          this.meaningful = true
+          for (const [name, value] of used) this.used.set(name, value)
+          return expr
+        }
+      } catch (e) {
+        if (!(e instanceof ParseFail)) throw e
+      }
+    }
+    this.i = start
+    throw new ParseFail('unknown symbol C')
   }
 
   private kostka(): Expr {
@@ -569,6 +604,8 @@ export class SideParser {
     return { type: 'determinant', rows }
   }
 }
+
+const sizeOf = (parts: readonly number[]): number => parts.reduce((sum, part) => sum + part, 0)
 
 function describeNodes(nodes: MathNode[]): string {
   return nodes.map(describe).join('') || '(empty)'
@@ -676,7 +713,12 @@ function readMultiplicativeIndex(nodes: MathNode[], ctx: ParseContext, used: Map
   return readPartition(nodes, ctx, used)
 }
 
-/** Split `u,v` or `\lambda\mu` (two symbols) into two node lists. */
+/**
+ * Split `u,v`, `\lambda\mu` (two symbols) or `21\,21` (two digit runs separated by spacing) into
+ * two node lists. Spacing commands are dropped from the tree, so the separation is seen as a gap
+ * between the source positions of two neighbouring digits; `2121` with no gap is ambiguous and
+ * is not split.
+ */
 function splitPair(nodes: MathNode[]): [MathNode[], MathNode[]] | undefined {
   const ns = unwrap(nodes)
   const parts = splitCommas(ns)
@@ -684,7 +726,18 @@ function splitPair(nodes: MathNode[]): [MathNode[], MathNode[]] | undefined {
   if (parts.length === 1 && ns.length === 2 && symbolName(ns[0]) && symbolName(ns[1]) && !isDigit(ns[0]) && !isDigit(ns[1])) {
     return [[ns[0]!], [ns[1]!]]
   }
+  const gap = splitBySpacing(ns)
+  if (gap !== undefined) return [ns.slice(0, gap), ns.slice(gap)]
   return undefined
+}
+
+/** In digits only, the place of the one gap left by dropped spacing (`21\,21` → 2); else undefined. */
+function splitBySpacing(nodes: MathNode[]): number | undefined {
+  const ns = unwrap(nodes)
+  if (ns.length < 2 || !ns.every(isDigit)) return undefined
+  const gaps: number[] = []
+  for (let j = 1; j < ns.length; j++) if (ns[j]!.pos > ns[j - 1]!.end) gaps.push(j)
+  return gaps.length === 1 ? gaps[0] : undefined
 }
 
 function lookupSymbol(nodes: MathNode[], ctx: ParseContext): { name: string; value?: ContextValue } | undefined {
