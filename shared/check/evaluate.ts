@@ -67,7 +67,10 @@ export function evaluate(expr: Expr, env: EvaluationEnv): Value {
     case 'negate': return negateValue(evaluate(expr.arg, env))
     case 'multiply': return expr.factors.reduce<Value>((acc, f) => multiplyValues(acc, evaluate(f, env), env.meter), numberValue(1))
     case 'power': return powerValue(evaluate(expr.base, env), expr.exponent, env.meter)
-    case 'schubert': return { kind: 'polynomial', poly: schubertValue(permutationIn(expr.perm, env), expr.variant === 'double', env) }
+    case 'schubert': {
+      const poly = schubertValue(permutationIn(expr.perm, env), expr.variant === 'double', env)
+      return { kind: 'polynomial', poly: expr.negatedY ? poly.negateY() : poly }
+    }
     case 'grothendieck': {
       if (expr.variant === 'double') throw new UnsupportedClaimError('double Grothendieck polynomials are not computed yet')
       const w = permutationIn(expr.perm, env)

@@ -366,6 +366,10 @@ export class SideParser {
     const args = this.variableArguments()
     this.meaningful = true
     const obj: Expr = { type, perm, variant: args.kind === 'double' ? 'double' : 'single' }
+    if (args.negatedY) {
+      if (type !== 'schubert') throw new ParseFail(`${what}(x;-y) is not supported`)
+      obj.negatedY = true
+    }
     const value: Expr = args.kind === 'ones' ? { type: 'evaluateAtOnes', arg: obj, variableCount: args.count } : obj
     return exponent === undefined ? value : { type: 'power', base: value, exponent }
   }
@@ -374,11 +378,23 @@ export class SideParser {
    * Optional variables after an object: (x), (x;y), (x,y), (\mathbf x;\mathbf y), (x_1,…,x_n),
    * or (1,…,1). A parenthesis that is none of these is left for multiplication.
    */
-  private variableArguments(): { kind: 'none' | 'single' | 'double' | 'ones'; count?: number } {
+  private variableArguments(): { kind: 'none' | 'single' | 'double' | 'ones'; count?: number; negatedY?: boolean } {
     const paren = this.parenthesised()
     if (!paren) return { kind: 'none' }
     const content = paren.content
-    const groups = splitAt(content, m => isCh(m, ';'))
+    // (x;y), (x|y) and (x;-y): the second alphabet after a semicolon or a bar; a minus sign in
+    // front of it means y replaced by −y.
+    const groups = splitAt(content, m => isCh(m, ';') || isCh(m, '|') || isCs(m, 'mid') || isCs(m, 'vert'))
+    const negatedY = groups.length === 2 && isCh(groups[1]![0], '-') && groups[1]!.length > 1
+    if (negatedY) {
+      const second = splitCommas(groups[1]!.slice(1))
+      const ys = second.map(it => variableLetter(it, this.ctx, this.used))
+      if (!ys.every(l => l?.letter === 'y')) return { kind: 'none' }
+      const xs = splitCommas(groups[0]!).map(it => variableLetter(it, this.ctx, this.used))
+      if (!xs.every(l => l?.letter === 'x')) return { kind: 'none' }
+      this.i += paren.length
+      return { kind: 'double', negatedY: true }
+    }
     const items = groups.flatMap(g => splitCommas(g))
     const letters = items.map(it => variableLetter(it, this.ctx, this.used))
     let result: { kind: 'none' | 'single' | 'double' | 'ones'; count?: number } | undefined

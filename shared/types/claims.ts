@@ -42,7 +42,8 @@ export type Expr =
   | { type: 'multiply'; factors: Expr[] }
   | { type: 'power'; base: Expr; exponent: number }
   /** \mathfrak S_w (single) or \mathfrak S_w(x;y) (double). */
-  | { type: 'schubert'; perm: PermutationSpec; variant: SchubertVariant }
+  /** `negatedY`: written S_w(x;-y), the double polynomial with every y_j replaced by −y_j. */
+  | { type: 'schubert'; perm: PermutationSpec; variant: SchubertVariant; negatedY?: true }
   /** \mathfrak G_w, single or double. */
   | { type: 'grothendieck'; perm: PermutationSpec; variant: SchubertVariant }
   /** Stanley symmetric function F_w. */
