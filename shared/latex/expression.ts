@@ -17,12 +17,15 @@
 import type { ContextValue, Expr, Partition, PermutationSpec, CountedObject, SymmetricFamily } from '../types/claims'
 import { MATRIX_ENVS, plainText, type MathNode } from './math-tree'
 import type { NotationObject } from './tags'
+import { alphabetOfList, declaredAlphabet, type Alphabet } from './notation/alphabet'
 
 export class ParseFail extends Error {}
 
 export interface ParseContext {
   bindings: ReadonlyMap<string, ContextValue>
   notation: ReadonlyMap<string, NotationObject>
+  /** The alphabet this claim declares in an argument list (`s_{21}(a,b,c)`), if any. */
+  alphabet?: Alphabet
 }
 
 export type SideResult =
@@ -107,6 +110,16 @@ export class SideParser {
       if (!(e instanceof ParseFail)) throw e
       return { ok: false, reason: e.message, recognised: p.recognised || mentionsKnownObject(nodes, ctx), used: p.used }
     }
+  }
+
+  /**
+   * Parse both sides of an equation, with the alphabet either side declares in an argument list
+   * (`s_{21}(a,b,c) = a^2b + …`, `m_2(x_0,x_1,x_2) = x_0^2 + …`, `\mathfrak{S}_w(x;z)`).
+   */
+  static parseEquation(lhs: MathNode[], rhs: MathNode[], ctx: ParseContext): [SideResult, SideResult] {
+    const alphabet = declaredAlphabet(lhs, rhs)
+    const claimCtx: ParseContext = alphabet ? { ...ctx, alphabet } : ctx
+    return [SideParser.parseSide(lhs, claimCtx), SideParser.parseSide(rhs, claimCtx)]
   }
 
   private parseAll(): Expr {
@@ -252,6 +265,12 @@ export class SideParser {
     }
     if (n.k === 'ch') {
       this.i++
+      const alphabet = this.ctx.alphabet
+      if (alphabet?.kind === 'letters' && alphabet.letters.includes(n.v) && !isCh(this.peek(), '_')) {
+        this.meaningful = true
+        return { type: 'variable', name: 'x', index: alphabet.letters.indexOf(n.v) + 1 }
+      }
+      if (alphabet?.kind === 'secondZ' && n.v === 'z') return this.variable('y', 'z')
       switch (n.v) {
         case 'x':
         case 'y':
@@ -317,14 +336,16 @@ export class SideParser {
     throw new ParseFail(`unknown symbol \\${n.v}`)
   }
 
-  private variable(name: 'x' | 'y'): Expr {
+  private variable(name: 'x' | 'y', written: string = name): Expr {
     const { sub, sup } = this.readScripts()
     if (sup) this.i -= 2 // leave the power to parseFactor
-    if (!sub) throw new ParseFail(`variable ${name} without an index`)
+    if (!sub) throw new ParseFail(`variable ${written} without an index`)
     const index = readInteger(sub)
-    if (index === undefined || index < 1) throw new ParseFail(`index ${describeNodes(sub)} of ${name} is not a positive integer`)
+    // In a claim whose alphabet starts at x_0, x_i is the engine's x_{i+1}.
+    const shift = name === 'x' && this.ctx.alphabet?.kind === 'fromZero' ? 1 : 0
+    if (index === undefined || index + shift < 1) throw new ParseFail(`index ${describeNodes(sub)} of ${written} is not a positive integer`)
     this.meaningful = true
-    return { type: 'variable', name, index }
+    return { type: 'variable', name, index: index + shift }
   }
 
   private notationObject(object: NotationObject): Expr {
@@ -382,6 +403,12 @@ export class SideParser {
     const paren = this.parenthesised()
     if (!paren) return { kind: 'none' }
     const content = paren.content
+    const declared = this.ctx.alphabet ? alphabetOfList(content) : undefined
+    if (declared && declared.kind === this.ctx.alphabet!.kind) {
+      this.i += paren.length
+      if (declared.kind === 'secondZ') return { kind: 'double' }
+      return { kind: 'single', count: declared.kind === 'letters' ? declared.letters.length : splitCommas(content).length }
+    }
     // (x;y), (x|y) and (x;-y): the second alphabet after a semicolon or a bar; a minus sign in
     // front of it means y replaced by −y.
     const groups = splitAt(content, m => isCh(m, ';') || isCh(m, '|') || isCs(m, 'mid') || isCs(m, 'vert'))

@@ -592,8 +592,7 @@ export class ReaderRun {
     const endLine = positionAt(file.starts, Math.max(rspan.end - 1, anchor)).line
     const tags = this.tagsFor(file, at.line, endLine, startLine)
     const ctx = { bindings: this.bindings, notation: this.notation }
-    const l = SideParser.parseSide(lhs.nodes, ctx)
-    const r = SideParser.parseSide(rhs.nodes, ctx)
+    const [l, r] = SideParser.parseEquation(lhs.nodes, rhs.nodes, ctx)
     let decision = decide(l, r)
     if (decision.type === 'silent' && chainKind && l.ok && r.ok) decision = { type: 'claim' }
     const claimTag = tags.find(d => d.type === 'claim') as { type: 'claim'; kind?: ClaimKind } | undefined

@@ -42,3 +42,47 @@ describe('second alphabets of double Schubert polynomials', () => {
     }
   })
 })
+
+describe('alphabets a claim declares in an argument list', () => {
+  // sympy, bialternant formula: s_21(a,b,c) = a**2*b + a**2*c + a*b**2 + 2*a*b*c + a*c**2 + b**2*c + b*c**2
+  const S21_ABC = 'a^2b+a^2c+ab^2+2abc+ac^2+b^2c+bc^2'
+
+  it('reads s_{21}(a,b,c) with a, b, c as the three variables', () => {
+    const q = onlyQuestion(`$s_{21}(a,b,c) = ${S21_ABC}$`)
+    expect(q.lhs).toEqual({ type: 'symmetric', family: 'schur', index: [2, 1], variableCount: 3 })
+  })
+
+  it('verifies s_{21}(a,b,c) (sympy) and flags a wrong coefficient of abc', () => {
+    expect(verdictsOf(`$s_{21}(a,b,c) = ${S21_ABC}$`)).toEqual(['verified'])
+    expect(verdictsOf(`$s_{21}(a,b,c) = ${S21_ABC.replace('2abc', 'abc')}$`)).toEqual(['mismatch'])
+  })
+
+  it('verifies m_{2}(x_0,x_1,x_2) in variables from x_0 and flags a missing square', () => {
+    // m_2 in three variables is the sum of their squares (definition, common practice).
+    expect(onlyQuestion('$m_{2}(x_0,x_1,x_2) = x_0^2+x_1^2+x_2^2$').lhs).toEqual({ type: 'symmetric', family: 'monomial', index: [2], variableCount: 3 })
+    expect(verdictsOf('$m_{2}(x_0,x_1,x_2) = x_0^2+x_1^2+x_2^2$')).toEqual(['verified'])
+    expect(verdictsOf('$m_{2}(x_0,x_1,x_2) = x_0^2+x_1^2$')).toEqual(['mismatch'])
+  })
+
+  it('reads a second alphabet z in \\mathfrak{S}_w(x;z) as y', () => {
+    expect(onlyQuestion('$\\mathfrak{S}_{132}(x;z) = x_1+x_2-z_1-z_2$').rhs).toEqual({
+      type: 'add', terms: [{ type: 'variable', name: 'x', index: 1 }, { type: 'variable', name: 'x', index: 2 }, { type: 'negate', arg: { type: 'variable', name: 'y', index: 1 } }, { type: 'negate', arg: { type: 'variable', name: 'y', index: 2 } }],
+    })
+    const fixed = '$\\mathfrak{S}_{21}(x;y) = x_1 - y_1$, so '
+    expect(verdictsOf(`${fixed}$\\mathfrak{S}_{132}(x;z) = x_1+x_2-z_1-z_2$.`)).toEqual(['verified', 'verified'])
+    expect(verdictsOf(`${fixed}$\\mathfrak{S}_{132}(x;z) = x_1+x_2+z_1-z_2$.`)).toEqual(['verified', 'mismatch'])
+  })
+
+  it('declares no alphabet when letters sit next to explicit x_i, or outside an argument list', () => {
+    for (const tex of ['$s_{1}(a,b) = a + x_1$', '$f(a,b) = a + b$', '$z_1 = x_1$', '$a + b = s_{1}$']) {
+      const verdicts = verdictsOf(tex)
+      expect(verdicts, tex).not.toContain('verified')
+      expect(verdicts, tex).not.toContain('mismatch')
+    }
+  })
+
+  it('verifies e_{2}(a,b) = ab and flags a^2', () => {
+    expect(verdictsOf('$e_{2}(a,b) = ab$')).toEqual(['verified'])
+    expect(verdictsOf('$e_{2}(a,b) = a^2$')).toEqual(['mismatch'])
+  })
+})
