@@ -174,8 +174,24 @@ export interface ReadFileInfo {
   role: 'main' | 'included' | 'unused'
 }
 
+/**
+ * Math the reader met but did not understand well enough to claim anything about it.
+ * Never a verdict: it is listed apart so the author can see what was passed over.
+ */
+export interface NotReadMath {
+  file: string
+  /** 1-based, in `file`. */
+  line: number
+  /** The LaTeX as written, cut to about 120 characters. */
+  source: string
+  /** Why it was not read, in a few words. */
+  reason: string
+}
+
 export interface ReadResult {
   claims: Claim[]
   warnings: ReaderWarning[]
   files: ReadFileInfo[]
+  /** Math passed over because the reader could not be sure what it says (never counted as a verdict). */
+  notRead: NotReadMath[]
 }
