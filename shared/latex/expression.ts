@@ -386,10 +386,10 @@ export class SideParser {
     const perm = this.permutationFromScript(sub, what)
     const args = this.variableArguments()
     this.meaningful = true
-    const obj: Expr = { type, perm, variant: args.kind === 'double' ? 'double' : 'single' }
+    const obj: Extract<Expr, { type: 'schubert' | 'grothendieck' }> = { type, perm, variant: args.kind === 'double' ? 'double' : 'single' }
     if (args.negatedY) {
       if (type !== 'schubert') throw new ParseFail(`${what}(x;-y) is not supported`)
-      obj.negatedY = true
+      ;(obj as Extract<Expr, { type: 'schubert' }>).negatedY = true
     }
     const value: Expr = args.kind === 'ones' ? { type: 'evaluateAtOnes', arg: obj, variableCount: args.count } : obj
     return exponent === undefined ? value : { type: 'power', base: value, exponent }
