@@ -16,7 +16,7 @@ import type { ConventionSet } from '../types/conventions'
 import {
   BudgetMeter, completeSymmetric, conjugate, countBumplessPipeDreams, countPipeDreams, countReducedWords, determinant,
   dividedDifference, doubleSchubertPolynomial, elementarySymmetric, grothendieckPolynomial, kostkaNumber, littlewoodRichardson,
-  monomialSymmetric, partitionKey, Permutation, Polynomial, powerSum, schubertPolynomial, schurCombinationToPolynomial,
+  monomialSymmetric, partitionKey, Permutation, Polynomial, powerSum, schubertPolynomial, schurCombinationToPolynomial, skewSchurExpansion,
   schurExpansion, schurPolynomial, stanleySymmetricFunction, structureConstant, toPartition, type SchurCombination,
 } from '../math'
 import { addValues, multiplyValues, negateValue, numberValue, powerValue, toPolynomial, UnsupportedClaimError, type Value } from './values'
@@ -67,7 +67,10 @@ export function evaluate(expr: Expr, env: EvaluationEnv): Value {
     case 'negate': return negateValue(evaluate(expr.arg, env))
     case 'multiply': return expr.factors.reduce<Value>((acc, f) => multiplyValues(acc, evaluate(f, env), env.meter), numberValue(1))
     case 'power': return powerValue(evaluate(expr.base, env), expr.exponent, env.meter)
-    case 'schubert': return { kind: 'polynomial', poly: schubertValue(permutationIn(expr.perm, env), expr.variant === 'double', env) }
+    case 'schubert': {
+      const poly = schubertValue(permutationIn(expr.perm, env), expr.variant === 'double', env)
+      return { kind: 'polynomial', poly: expr.negatedY ? poly.negateY() : poly }
+    }
     case 'grothendieck': {
       if (expr.variant === 'double') throw new UnsupportedClaimError('double Grothendieck polynomials are not computed yet')
       const w = permutationIn(expr.perm, env)
@@ -132,6 +135,13 @@ function schubertValue(w: Permutation, double: boolean, env: EvaluationEnv): Pol
 function symmetricValue(expr: Extract<Expr, { type: 'symmetric' }>, env: EvaluationEnv): Value {
   const n = expr.variableCount
   const k = expr.index[0] ?? 0
+  if (expr.skew) {
+    // s_{λ/μ} = Σ_ν c^λ_{μν} s_ν; in n variables only ν with at most n rows survive.
+    const lambda = partitionIn(expr.index, env)
+    const mu = partitionIn(expr.skew, env)
+    const schur = remember(env, `skew|${partitionKey(lambda)}/${partitionKey(mu)}`, () => skewSchurExpansion(lambda, mu, { budget: env.meter }))
+    return n === undefined ? { kind: 'symmetric', schur } : { kind: 'polynomial', poly: schurCombinationToPolynomial(schur, n, env.meter) }
+  }
   if (n !== undefined) {
     switch (expr.family) {
       case 'schur': return { kind: 'polynomial', poly: schurPolynomial(partitionIn(expr.index, env), n, env.meter) }

@@ -67,11 +67,13 @@ export function assembleReport(read: ReadResult, evaluations: readonly ClaimEval
       error: count(c => c.verdict === 'error'),
       otherConvention: count(c => c.verdict === 'mismatch' && c.holdsUnder.length > 0),
       skipped: read.claims.filter(c => c.status === 'skipped').length,
+      notRead: read.notRead.length,
       durationMs: Math.round(options.durationMs),
     },
     files: read.files.map(f => ({ path: f.path, role: f.role, lines: f.lines, ...(options.hashes?.[f.path] ? { sha256: options.hashes[f.path] } : {}) })),
     warnings: read.warnings.map(w => ({ code: w.code, message: w.message, ...(w.file ? { file: w.file } : {}), ...(w.line ? { line: w.line } : {}) })),
     claims,
+    notRead: read.notRead.map(n => ({ file: n.file, line: n.line, source: n.source, reason: n.reason })),
   }
 }
 

@@ -17,12 +17,15 @@
 import type { ContextValue, Expr, Partition, PermutationSpec, CountedObject, SymmetricFamily } from '../types/claims'
 import { MATRIX_ENVS, plainText, type MathNode } from './math-tree'
 import type { NotationObject } from './tags'
+import { alphabetOfList, declaredAlphabet, type Alphabet } from './notation/alphabet'
 
 export class ParseFail extends Error {}
 
 export interface ParseContext {
   bindings: ReadonlyMap<string, ContextValue>
   notation: ReadonlyMap<string, NotationObject>
+  /** The alphabet this claim declares in an argument list (`s_{21}(a,b,c)`), if any. */
+  alphabet?: Alphabet
 }
 
 export type SideResult =
@@ -107,6 +110,16 @@ export class SideParser {
       if (!(e instanceof ParseFail)) throw e
       return { ok: false, reason: e.message, recognised: p.recognised || mentionsKnownObject(nodes, ctx), used: p.used }
     }
+  }
+
+  /**
+   * Parse both sides of an equation, with the alphabet either side declares in an argument list
+   * (`s_{21}(a,b,c) = a^2b + …`, `m_2(x_0,x_1,x_2) = x_0^2 + …`, `\mathfrak{S}_w(x;z)`).
+   */
+  static parseEquation(lhs: MathNode[], rhs: MathNode[], ctx: ParseContext): [SideResult, SideResult] {
+    const alphabet = declaredAlphabet(lhs, rhs)
+    const claimCtx: ParseContext = alphabet ? { ...ctx, alphabet } : ctx
+    return [SideParser.parseSide(lhs, claimCtx), SideParser.parseSide(rhs, claimCtx)]
   }
 
   private parseAll(): Expr {
@@ -252,6 +265,12 @@ export class SideParser {
     }
     if (n.k === 'ch') {
       this.i++
+      const alphabet = this.ctx.alphabet
+      if (alphabet?.kind === 'letters' && alphabet.letters.includes(n.v) && !isCh(this.peek(), '_')) {
+        this.meaningful = true
+        return { type: 'variable', name: 'x', index: alphabet.letters.indexOf(n.v) + 1 }
+      }
+      if (alphabet?.kind === 'secondZ' && n.v === 'z') return this.variable('y', 'z')
       switch (n.v) {
         case 'x':
         case 'y':
@@ -270,6 +289,8 @@ export class SideParser {
           return this.symmetric('powerSum', n)
         case 'c':
           return this.coefficient()
+        case 'C':
+          return this.capitalCoefficient()
         case 'K':
           return this.kostka()
         case '|':
@@ -315,14 +336,16 @@ export class SideParser {
     throw new ParseFail(`unknown symbol \\${n.v}`)
   }
 
-  private variable(name: 'x' | 'y'): Expr {
+  private variable(name: 'x' | 'y', written: string = name): Expr {
     const { sub, sup } = this.readScripts()
     if (sup) this.i -= 2 // leave the power to parseFactor
-    if (!sub) throw new ParseFail(`variable ${name} without an index`)
+    if (!sub) throw new ParseFail(`variable ${written} without an index`)
     const index = readInteger(sub)
-    if (index === undefined || index < 1) throw new ParseFail(`index ${describeNodes(sub)} of ${name} is not a positive integer`)
+    // In a claim whose alphabet starts at x_0, x_i is the engine's x_{i+1}.
+    const shift = name === 'x' && this.ctx.alphabet?.kind === 'fromZero' ? 1 : 0
+    if (index === undefined || index + shift < 1) throw new ParseFail(`index ${describeNodes(sub)} of ${written} is not a positive integer`)
     this.meaningful = true
-    return { type: 'variable', name, index }
+    return { type: 'variable', name, index: index + shift }
   }
 
   private notationObject(object: NotationObject): Expr {
@@ -356,26 +379,51 @@ export class SideParser {
     this.recognised = true
     const what = type === 'schubert' ? '\\mathfrak{S}' : '\\mathfrak{G}'
     const { sub, sup } = this.readScripts()
-    if (sup) throw new ParseFail(`superscript on ${what} is not supported`)
+    // A superscript that is a non-negative integer is a power (\mathfrak{S}_{132}^2); any other
+    // superscript (\mathfrak{G}^{(\beta)}, \mathfrak{S}^{(n)}) is a different object.
+    const exponent = sup ? readInteger(sup) : undefined
+    if (sup && exponent === undefined) throw new ParseFail(`superscript on ${what} is not supported`)
     const perm = this.permutationFromScript(sub, what)
     const args = this.variableArguments()
     this.meaningful = true
-    const obj: Expr = { type, perm, variant: args.kind === 'double' ? 'double' : 'single' }
-    if (args.kind === 'ones') return { type: 'evaluateAtOnes', arg: obj, variableCount: args.count }
-    return obj
+    const obj: Extract<Expr, { type: 'schubert' | 'grothendieck' }> = { type, perm, variant: args.kind === 'double' ? 'double' : 'single' }
+    if (args.negatedY) {
+      if (type !== 'schubert') throw new ParseFail(`${what}(x;-y) is not supported`)
+      ;(obj as Extract<Expr, { type: 'schubert' }>).negatedY = true
+    }
+    const value: Expr = args.kind === 'ones' ? { type: 'evaluateAtOnes', arg: obj, variableCount: args.count } : obj
+    return exponent === undefined ? value : { type: 'power', base: value, exponent }
   }
 
   /**
    * Optional variables after an object: (x), (x;y), (x,y), (\mathbf x;\mathbf y), (x_1,…,x_n),
    * or (1,…,1). A parenthesis that is none of these is left for multiplication.
    */
-  private variableArguments(): { kind: 'none' | 'single' | 'double' | 'ones'; count?: number } {
+  private variableArguments(): { kind: 'none' | 'single' | 'double' | 'ones'; count?: number; negatedY?: boolean } {
     const paren = this.parenthesised()
     if (!paren) return { kind: 'none' }
     const content = paren.content
-    const groups = splitAt(content, m => isCh(m, ';'))
+    const declared = this.ctx.alphabet ? alphabetOfList(content) : undefined
+    if (declared && declared.kind === this.ctx.alphabet!.kind) {
+      this.i += paren.length
+      if (declared.kind === 'secondZ') return { kind: 'double' }
+      return { kind: 'single', count: declared.kind === 'letters' ? declared.letters.length : splitCommas(content).length }
+    }
+    // (x;y), (x|y) and (x;-y): the second alphabet after a semicolon or a bar; a minus sign in
+    // front of it means y replaced by −y.
+    const groups = splitAt(content, m => isCh(m, ';') || isCh(m, '|') || isCs(m, 'mid') || isCs(m, 'vert'))
+    const negatedY = groups.length === 2 && isCh(groups[1]![0], '-') && groups[1]!.length > 1
+    if (negatedY) {
+      const second = splitCommas(groups[1]!.slice(1))
+      const ys = second.map(it => variableLetter(it, this.ctx, this.used))
+      if (!ys.every(l => l?.letter === 'y')) return { kind: 'none' }
+      const xs = splitCommas(groups[0]!).map(it => variableLetter(it, this.ctx, this.used))
+      if (!xs.every(l => l?.letter === 'x')) return { kind: 'none' }
+      this.i += paren.length
+      return { kind: 'double', negatedY: true }
+    }
     const items = groups.flatMap(g => splitCommas(g))
-    const letters = items.map(it => variableLetter(it))
+    const letters = items.map(it => variableLetter(it, this.ctx, this.used))
     let result: { kind: 'none' | 'single' | 'double' | 'ones'; count?: number } | undefined
     if (letters.every(l => l !== undefined)) {
       const set = new Set(letters.map(l => l!.letter))
@@ -406,18 +454,28 @@ export class SideParser {
     if (!sub) throw new ParseFail(`unknown symbol ${letterNode ? letter : 'macro'}`)
     if (sup) this.i -= 2
     this.recognised = true
+    const multiplicative = family === 'elementary' || family === 'complete' || family === 'powerSum'
+    const skewShape = family === 'schur' ? splitSkewShape(sub) : undefined
+    let skew: Partition | undefined
     let index: Partition
-    if (family === 'elementary' || family === 'complete' || family === 'powerSum') {
-      const k = readInteger(sub)
-      if (k === undefined) throw new ParseFail(`index ${describeNodes(sub)} of ${letter} is not an integer`)
-      index = k === 0 ? [] : [k]
-    } else index = readPartition(sub, this.ctx, this.used)
+    if (skewShape) {
+      index = readPartition(skewShape.outer, this.ctx, this.used)
+      skew = readPartition(skewShape.inner, this.ctx, this.used)
+      if (skew.some((part, row) => part > (index[row] ?? 0))) throw new ParseFail(`(${skew.join(',')}) does not fit inside (${index.join(',')}), so ${letter}_{λ/μ} is not a skew shape`)
+    } else index = multiplicative ? readMultiplicativeIndex(sub, this.ctx, this.used) : readPartition(sub, this.ctx, this.used)
     const args = this.variableArguments()
     this.meaningful = true
-    const obj: Expr = { type: 'symmetric', family, index }
-    if (args.kind === 'single' && args.count !== undefined) obj.variableCount = args.count
+    let variableCount: number | undefined
+    if (args.kind === 'single' && args.count !== undefined) variableCount = args.count
     else if (args.kind === 'single') throw new ParseFail(`number of variables of ${letter}_{…}(x_1,…) is unclear; write x_1,\\dots,x_4`)
     else if (args.kind === 'double') throw new ParseFail(`${letter} in two sets of variables is not supported`)
+    const single = (parts: Partition): Expr => ({
+      type: 'symmetric', family, index: parts,
+      ...(variableCount === undefined ? {} : { variableCount }),
+      ...(skew && skew.length ? { skew } : {}),
+    })
+    // e_λ, h_λ, p_λ are products over the parts of λ: e_{21} = e_2 e_1.
+    const obj: Expr = multiplicative && index.length > 1 ? { type: 'multiply', factors: index.map(part => single([part])) } : single(index)
     if (args.kind === 'ones') return { type: 'evaluateAtOnes', arg: obj, variableCount: args.count }
     return obj
   }
@@ -488,7 +546,40 @@ export class SideParser {
     const lower = splitPair(sub)
     if (!lower) throw new ParseFail(`cannot split the subscript of c into two indices; separate them with a comma`)
     this.meaningful = true
-    return readCoefficient(lower[0], lower[1], sup, this.ctx, this.used)
+    const expr = readCoefficient(lower[0], lower[1], sup, this.ctx, this.used)
+    // Indices told apart only by spacing (c^{42}_{21\,21}) are partitions; read them only when
+    // the sizes fit, never as permutations.
+    if (splitBySpacing(sub) && !(expr.type === 'littlewoodRichardson' && sizeOf(expr.nu) === sizeOf(expr.lambda) + sizeOf(expr.mu))) {
+      throw new ParseFail('the indices of c, told apart only by spacing, do not read as partitions with |ν| = |λ| + |μ|')
+    }
+    return expr
+  }
+
+  /**
+   * C^{ν}_{λ,μ}: some papers write the Littlewood–Richardson coefficient with a capital C. A
+   * capital C is read only when all three indices are partitions with |ν| = |λ| + |μ|; otherwise
+   * (a constant, a Schubert structure constant in another paper's notation) it is not read.
+   */
+  private capitalCoefficient(): Expr {
+    const start = this.i
+    const { sub, sup } = this.readScripts()
+    const lower = sub && sup ? splitPair(sub) : undefined
+    if (sub && sup && lower) {
+      const used = new Map<string, ContextValue>()
+      try {
+        const expr = readCoefficient(lower[0], lower[1], sup, this.ctx, used)
+        if (expr.type === 'littlewoodRichardson' && sizeOf(expr.nu) === sizeOf(expr.lambda) + sizeOf(expr.mu)) {
+          this.recognised = true
+          this.meaningful = true
+          for (const [name, value] of used) this.used.set(name, value)
+          return expr
+        }
+      } catch (e) {
+        if (!(e instanceof ParseFail)) throw e
+      }
+    }
+    this.i = start
+    throw new ParseFail('unknown symbol C')
   }
 
   private kostka(): Expr {
@@ -557,6 +648,8 @@ export class SideParser {
   }
 }
 
+const sizeOf = (parts: readonly number[]): number => parts.reduce((sum, part) => sum + part, 0)
+
 function describeNodes(nodes: MathNode[]): string {
   return nodes.map(describe).join('') || '(empty)'
 }
@@ -570,9 +663,10 @@ function splitAt(nodes: MathNode[], isSep: (m: MathNode) => boolean): MathNode[]
   return out
 }
 
-function variableLetter(item: MathNode[]): { letter: 'x' | 'y'; index?: number; dots?: boolean } | undefined {
+/** One entry of a variable list: `x`, `x_3`, `\\mathbf y`, `\\dots`, or `x_n` with n bound to an integer. */
+function variableLetter(item: MathNode[], ctx?: ParseContext, used?: Map<string, ContextValue>): { letter: 'x' | 'y'; index?: number; dots?: boolean } | undefined {
   const ns = unwrap(item).filter(n => !(n.k === 'cs' && (n.v === 'mathbf' || n.v === 'boldsymbol' || n.v === 'bm')))
-  if (ns.length === 1 && ns[0]!.k === 'group') return variableLetter(ns[0]!.children)
+  if (ns.length === 1 && ns[0]!.k === 'group') return variableLetter(ns[0]!.children, ctx, used)
   if (isDots(ns)) return { letter: 'x', dots: true }
   const first = ns[0]
   if (!first) return undefined
@@ -582,6 +676,11 @@ function variableLetter(item: MathNode[]): { letter: 'x' | 'y'; index?: number; 
   if (ns.length === 3 && isCh(ns[1], '_')) {
     const index = readInteger(childrenOf(ns[2]!))
     if (index !== undefined) return { letter, index }
+    const sym = ctx ? lookupSymbol(childrenOf(ns[2]!), ctx) : undefined
+    if (sym?.value?.kind === 'integer') {
+      used?.set(sym.name, sym.value)
+      return { letter, index: sym.value.value }
+    }
     return { letter }
   }
   return undefined
@@ -608,7 +707,61 @@ function isDots(item: MathNode[]): boolean {
   return ns.length === 3 && ns.every(n => isCh(n, '.'))
 }
 
-/** Split `u,v` or `\lambda\mu` (two symbols) into two node lists. */
+/**
+ * A skew shape `λ/μ` in a subscript: `(3,2)/(1)`, `32/1`, `\lambda/\mu`. Exactly one top-level
+ * slash with something on both sides; anything else is not a skew shape.
+ */
+function splitSkewShape(nodes: MathNode[]): { outer: MathNode[]; inner: MathNode[] } | undefined {
+  const parts: MathNode[][] = [[]]
+  let depth = 0
+  for (const n of unwrap(nodes)) {
+    if (isCh(n, '(') || isCh(n, '[')) depth++
+    if (isCh(n, ')') || isCh(n, ']')) depth--
+    if (depth === 0 && isCh(n, '/')) parts.push([])
+    else parts[parts.length - 1]!.push(n)
+  }
+  if (parts.length !== 2 || !parts[0]!.length || !parts[1]!.length) return undefined
+  return { outer: parts[0]!, inner: parts[1]! }
+}
+
+/**
+ * A Young diagram drawn with ytableau's `\ydiagram{2,1}`: the arguments are the row lengths.
+ * In English notation they are listed top row first; a paper in French notation that lists them
+ * bottom row first (as drawn) gives the same weakly decreasing list, so the partition is the
+ * same. A list that is not weakly decreasing (`\ydiagram{1,2}`: English nonsense, or French rows
+ * listed top-down) or a skew diagram (`\ydiagram{1+2,3}`) is left unread: we do not guess.
+ */
+function readYoungDiagram(nodes: MathNode[]): Partition | undefined {
+  const ns = unwrap(nodes)
+  if (!(ns.length === 2 && isCs(ns[0], 'ydiagram') && ns[1]!.k === 'group')) return undefined
+  const rows = splitCommas(ns[1]!.children).map(readInteger)
+  if (!rows.length || rows.some(r => r === undefined || r < 1)) throw new ParseFail('\\ydiagram{…} with offsets or non-numeric rows is not read')
+  const parts = rows as number[]
+  if (parts.some((r, j) => j > 0 && r > parts[j - 1]!)) throw new ParseFail(`\\ydiagram{${parts.join(',')}} does not list weakly decreasing rows; left unread (English or French order is unclear)`)
+  return parts
+}
+
+/**
+ * The index of e, h or p: one digit (`e_3`), an
+ * integer symbol the paper bound ("Let $k = 3$"), or a partition (`e_{21}`, `h_{(2,2)}`, bound λ).
+ * Digits written together are parts, as for s_λ: `e_{21}` is e_{(2,1)}, never e with index 21.
+ */
+function readMultiplicativeIndex(nodes: MathNode[], ctx: ParseContext, used: Map<string, ContextValue>): Partition {
+  const sym = lookupSymbol(nodes, ctx)
+  if (sym?.value?.kind === 'integer') {
+    used.set(sym.name, sym.value)
+    if (sym.value.value < 0) throw new ParseFail(`${sym.name} = ${sym.value.value} is negative`)
+    return sym.value.value === 0 ? [] : [sym.value.value]
+  }
+  return readPartition(nodes, ctx, used)
+}
+
+/**
+ * Split `u,v`, `\lambda\mu` (two symbols) or `21\,21` (two digit runs separated by spacing) into
+ * two node lists. Spacing commands are dropped from the tree, so the separation is seen as a gap
+ * between the source positions of two neighbouring digits; `2121` with no gap is ambiguous and
+ * is not split.
+ */
 function splitPair(nodes: MathNode[]): [MathNode[], MathNode[]] | undefined {
   const ns = unwrap(nodes)
   const parts = splitCommas(ns)
@@ -616,7 +769,18 @@ function splitPair(nodes: MathNode[]): [MathNode[], MathNode[]] | undefined {
   if (parts.length === 1 && ns.length === 2 && symbolName(ns[0]) && symbolName(ns[1]) && !isDigit(ns[0]) && !isDigit(ns[1])) {
     return [[ns[0]!], [ns[1]!]]
   }
+  const gap = splitBySpacing(ns)
+  if (gap !== undefined) return [ns.slice(0, gap), ns.slice(gap)]
   return undefined
+}
+
+/** In digits only, the place of the one gap left by dropped spacing (`21\,21` → 2); else undefined. */
+function splitBySpacing(nodes: MathNode[]): number | undefined {
+  const ns = unwrap(nodes)
+  if (ns.length < 2 || !ns.every(isDigit)) return undefined
+  const gaps: number[] = []
+  for (let j = 1; j < ns.length; j++) if (ns[j]!.pos > ns[j - 1]!.end) gaps.push(j)
+  return gaps.length === 1 ? gaps[0] : undefined
 }
 
 function lookupSymbol(nodes: MathNode[], ctx: ParseContext): { name: string; value?: ContextValue } | undefined {
@@ -744,6 +908,8 @@ function checkOneLine(entries: number[]): PermutationSpec {
 /** Read a partition: `21`, `2,1`, `(2,1)`, `(2,1^2)`, a bound \lambda, or \emptyset. */
 export function readPartition(nodes: MathNode[], ctx: ParseContext, used: Map<string, ContextValue>): Partition {
   let ns = unwrap(nodes)
+  const diagram = readYoungDiagram(ns)
+  if (diagram) return diagram
   const sym = lookupSymbol(ns, ctx)
   if (sym && !isDigit(ns[0])) {
     if (sym.value?.kind === 'partition') {

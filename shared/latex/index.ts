@@ -55,5 +55,5 @@ export function readManuscript(input: ReadManuscriptInput): ReadResult {
   for (const p of outside) run.warn('path-escape', `file name "${p}" is absolute or leaves the manuscript folder; it was not read`)
   const main = input.main === undefined ? undefined : normalizeBundlePath(input.main) ?? input.main
   const fileInfo = run.run(main)
-  return { claims: run.claims, warnings: run.warnings, files: fileInfo }
+  return { claims: run.claims, warnings: run.warnings, files: fileInfo, notRead: run.notRead }
 }

@@ -6,7 +6,7 @@
  * error claims; only programmer misuse throws.
  */
 import type {
-  Claim, ClaimKind, ContextValue, ReadFileInfo, ReaderWarning, WarningCode,
+  Claim, ClaimKind, ContextValue, NotReadMath, ReadFileInfo, ReaderWarning, WarningCode,
 } from '../types/claims'
 import { axisOfConvention, type ConventionAxis, type ConventionId } from '../types/conventions'
 import { decodeSource, lineStarts, positionAt } from './decode'
@@ -16,10 +16,11 @@ import { Tokenizer, renderTokens, type Token } from './tokens'
 import { DEFINING_COMMANDS, Expander, ExpansionError, readDefinition, type MacroDefinition } from './macros'
 import { isTagComment, parseTag, type NotationObject, type TagDirective } from './tags'
 import {
-  MathSyntaxError, buildMathTree, renderNodes, spanOf, splitRows, splitStatements, type MathNode,
+  MathSyntaxError, buildMathTree, renderNodes, spanOf, splitRows, splitStatements, type MathNode, type Statement,
 } from './math-tree'
 import { SideParser, bindableSymbol, readPartition, readPermutation, ParseFail, type SideResult } from './expression'
 import { classifyClaim, containsObject, exprTypes } from './classify'
+import { isDefiningLeadIn, judgeStep, proseBefore, shortReason } from './precision'
 import type { ReaderLimits } from './limits'
 
 interface LoadedFile {
@@ -62,6 +63,7 @@ interface Part {
 export class ReaderRun {
   readonly claims: Claim[] = []
   readonly warnings: ReaderWarning[] = []
+  readonly notRead: NotReadMath[] = []
   private readonly loaded = new Map<string, LoadedFile | null>()
   private readonly roles = new Map<string, ReadFileInfo['role']>()
   private readonly macros = new Map<string, MacroDefinition>()
@@ -468,64 +470,64 @@ export class ReaderRun {
     const rows = splitRows(tree)
     const regionLabel = region.env && SINGLE_EQUATION_ENVS.has(region.env) ? rows.find(r => r.label)?.label : undefined
     const startLine = positionAt(region.file.starts, region.pos).line
-    let chain: Part[] | undefined
-    /** Kind of the chain's latest claim: later steps of a chain are checked even without objects of their own. */
-    let chainKind: ClaimKind | undefined
+    const definingLeadIn = !region.display && isDefiningLeadIn(proseBefore(region.file.masked, region.pos))
+    let chain: ChainState | undefined
     for (const row of rows) {
+      const label = row.label ?? regionLabel
       const statements = splitStatements(row.nodes)
       statements.forEach((st, j) => {
         const first = st.parts[0]!
+        const at = { region, label, startLine, definingLeadIn }
         if (j === 0 && chain && first.length === 0 && st.parts.length > 1) {
           // "&= C" continues the previous row: C is checked against its last expression.
-          const lhs = chain[chain.length - 1]!
-          chainKind = this.emitStep(region, lhs, st.parts[1]!, st.relations[0]!, row.label ?? regionLabel, startLine, true, undefined, chainKind)
-          chainKind = this.emitChain(region, st, 1, row.label ?? regionLabel, startLine, chainKind)
-          chain = [{ nodes: st.parts[st.parts.length - 1]! }]
+          const step = this.emitStep({ at, lhs: chain.lastSide, rhs: { nodes: st.parts[1]! }, relation: st.relations[0]!, continued: true, chainKind: chain.kind })
+          const kind = this.emitChain(at, st, 1, step?.kind ?? chain.kind)
+          chain = { lastSide: { nodes: st.parts[st.parts.length - 1]! }, kind: kind.kind, lastStep: kind.lastStep ?? step }
           return
         }
         if (j === 0 && chain && st.parts.length === 1 && (first[0]?.k === 'ch' && (first[0].v === '+' || first[0].v === '-'))) {
           // "& + x_3": a long right-hand side continued on this row. Re-read the last step.
-          this.extendLastClaim(region, chain[chain.length - 1]!, first)
+          this.extendLastClaim(chain, first)
           return
         }
         if (this.tryBinding(st)) {
           chain = undefined
           return
         }
-        chainKind = this.emitChain(region, st, 0, row.label ?? regionLabel, startLine, undefined)
-        chain = [{ nodes: st.parts[st.parts.length - 1]! }]
+        const made = this.emitChain(at, st, 0, undefined)
+        chain = { lastSide: { nodes: st.parts[st.parts.length - 1]! }, kind: made.kind, lastStep: made.lastStep }
       })
     }
   }
 
-  /** Remember the claim made from each step, so that a continued right-hand side can redo it. */
-  private lastStep: { lhs: Part; rhs: Part; rel: { node: MathNode }; label?: string; startLine: number; claimIndex: number; continued: boolean } | undefined
-
-  private extendLastClaim(region: Region, last: Part, extra: MathNode[]): void {
-    const step = this.lastStep
-    const matches = !!step && step.rhs.nodes === last.nodes
-    last.nodes = [...last.nodes, ...extra]
+  /** A right-hand side continued on the next row ("& + x_3"): grow it and redo the step that ended with it. */
+  private extendLastClaim(chain: ChainState, extra: MathNode[]): void {
+    const step = chain.lastStep
+    const matches = !!step && step.rhs.nodes === chain.lastSide.nodes
+    chain.lastSide = { nodes: [...chain.lastSide.nodes, ...extra] }
     if (!step || !matches) return
-    const idx = step.claimIndex
-    if (idx < 0 || idx >= this.claims.length) return
-    const old = this.claims[idx]!
-    this.claims.splice(idx, 1)
-    const key = `${old.file}:${old.line}`
-    this.idCounts.set(key, (this.idCounts.get(key) ?? 1) - 1)
-    this.emitStep(region, step.lhs, last.nodes, { ...step.rel, rel: '=', name: '=' }, step.label, step.startLine, step.continued, last)
+    if (step.claimIndex !== undefined) {
+      const old = this.claims[step.claimIndex]
+      if (!old || step.claimIndex !== this.claims.length - 1) return
+      this.claims.pop()
+      const key = `${old.file}:${old.line}`
+      this.idCounts.set(key, (this.idCounts.get(key) ?? 1) - 1)
+    }
+    if (step.notReadIndex !== undefined && step.notReadIndex === this.notRead.length - 1) this.notRead.pop()
+    const redone = this.emitStep({ ...step.input, rhs: chain.lastSide, relation: { ...step.input.relation, rel: '=', name: '=' } })
+    chain.lastStep = redone
   }
 
-  private emitChain(
-    region: Region, st: ReturnType<typeof splitStatements>[number], from: number, label: string | undefined,
-    startLine: number, chainKind: ClaimKind | undefined,
-  ): ClaimKind | undefined {
+  private emitChain(at: StepPlace, st: Statement, from: number, chainKind: ClaimKind | undefined): { kind?: ClaimKind; lastStep?: EmittedStep } {
     let kind = chainKind
+    let lastStep: EmittedStep | undefined
     for (let k = from; k + 1 < st.parts.length; k++) {
       if (st.parts[k]!.length === 0) continue
-      kind = this.emitStep(region, { nodes: st.parts[k]! }, st.parts[k + 1]!, st.relations[k]!, label, startLine, false, undefined, kind)
+      lastStep = this.emitStep({ at, lhs: { nodes: st.parts[k]! }, rhs: { nodes: st.parts[k + 1]! }, relation: st.relations[k]!, continued: false, chainKind: kind })
+      if (lastStep?.kind) kind = lastStep.kind
     }
-    if (st.parts.length === 1) this.emitLone(region, st.parts[0]!, label, startLine)
-    return kind
+    if (st.parts.length === 1) this.emitLone(at.region, st.parts[0]!, at.label, at.startLine)
+    return { kind, lastStep }
   }
 
   /** Math without a relation is a claim only when a tag says so. */
@@ -555,7 +557,7 @@ export class ReaderRun {
     return out
   }
 
-  private tryBinding(st: ReturnType<typeof splitStatements>[number]): boolean {
+  private tryBinding(st: Statement): boolean {
     if (st.parts.length !== 2 || st.relations[0]!.rel === 'other') return false
     const sym = bindableSymbol(st.parts[0]!)
     if (!sym) return false
@@ -578,37 +580,45 @@ export class ReaderRun {
     }
   }
 
-  private emitStep(
-    region: Region, lhs: Part, rhsNodes: MathNode[], rel: { rel: string; node: MathNode; name: string },
-    label: string | undefined, startLine: number, continued: boolean, rhsPart?: Part, chainKind?: ClaimKind,
-  ): ClaimKind | undefined {
+  private pushNotRead(file: LoadedFile, pos: number, end: number, reason: string): number {
+    const line = positionAt(file.starts, pos).line
+    const source = excerpt(file.original.slice(pos, end))
+    // Beamer overlays repeat the same math: list it once.
+    if (this.notRead.some(n => n.file === file.path && n.source === source && Math.abs(n.line - line) < 40)) return -1
+    if (this.notRead.length >= this.limits.maxClaims) return -1
+    this.notRead.push({ file: file.path, line, source, reason: shortReason(reason) })
+    return this.notRead.length - 1
+  }
+
+  /** Turn one `lhs rel rhs` step into a claim, a not-read entry, or nothing. */
+  private emitStep(input: StepInput): EmittedStep | undefined {
+    const { at: { region, label, startLine, definingLeadIn }, lhs, rhs, relation, continued, chainKind } = input
     const file = region.file
-    const rhs = rhsPart ?? { nodes: rhsNodes }
     const lspan = spanOf(lhs.nodes)
     const rspan = spanOf(rhs.nodes)
     if (!lspan || !rspan) return undefined
-    const anchor = continued ? rel.node.pos : lspan.pos
-    const at = positionAt(file.starts, anchor)
+    const anchor = continued ? relation.node.pos : lspan.pos
+    const position = positionAt(file.starts, anchor)
     const endLine = positionAt(file.starts, Math.max(rspan.end - 1, anchor)).line
-    const tags = this.tagsFor(file, at.line, endLine, startLine)
+    const tags = this.tagsFor(file, position.line, endLine, startLine)
     const ctx = { bindings: this.bindings, notation: this.notation }
-    const l = SideParser.parseSide(lhs.nodes, ctx)
-    const r = SideParser.parseSide(rhs.nodes, ctx)
-    let decision = decide(l, r)
-    if (decision.type === 'silent' && chainKind && l.ok && r.ok) decision = { type: 'claim' }
+    const [l, r] = SideParser.parseEquation(lhs.nodes, rhs.nodes, ctx)
     const claimTag = tags.find(d => d.type === 'claim') as { type: 'claim'; kind?: ClaimKind } | undefined
     const skip = tags.some(d => d.type === 'skip')
-    if (rel.rel !== '=' && !claimTag) return undefined
-    if (rel.rel !== '=') decision = { type: 'unsupported', reason: `the relation ${rel.name} is not checked; only equalities are` }
-    if (decision.type === 'silent' && !claimTag) {
-      this.lastStep = undefined
-      return undefined
+    const emitted: EmittedStep = { input, rhs }
+    if (relation.rel !== '=' && !claimTag) return undefined
+    let judgement = judgeStep({ lhs: l, rhs: r, lhsNodes: lhs.nodes, rhsNodes: rhs.nodes, definingLeadIn, inObjectChain: !!chainKind })
+    if (relation.rel !== '=') judgement = { type: 'unsupported', reason: `the relation ${relation.name} is not checked; only equalities are` }
+    if (!claimTag && judgement.type === 'silent') return emitted
+    if (!claimTag && judgement.type === 'notRead') {
+      const index = this.pushNotRead(file, Math.min(lspan.pos, rspan.pos), Math.max(lspan.end, rspan.end), judgement.reason)
+      return index >= 0 ? { ...emitted, notReadIndex: index } : emitted
     }
     const context: Record<string, ContextValue> = {}
-    for (const [k, v] of [...l.used, ...r.used]) context[k] = v
+    for (const [name, value] of [...l.used, ...r.used]) context[name] = value
     let kind: ClaimKind
     const base = {
-      file: file.path, line: at.line, endLine: Math.max(endLine, at.line), column: at.column,
+      file: file.path, line: position.line, endLine: Math.max(endLine, position.line), column: position.column,
       // Sides that overlap come from one macro call: its text is the claim as written.
       source: rspan.pos < lspan.end && lspan.pos < rspan.end
         ? sliceTrim(file.original, { pos: Math.min(lspan.pos, rspan.pos), end: Math.max(lspan.end, rspan.end) })
@@ -619,7 +629,7 @@ export class ReaderRun {
       ...(Object.keys(context).length ? { context } : {}),
       ...(claimTag ? { tagged: true } : {}),
     }
-    if (decision.type === 'claim' && l.ok && r.ok) {
+    if (judgement.type === 'claim' && l.ok && r.ok) {
       const own = classifyClaim(l.expr, r.expr)
       // A step of plain numbers ("= 1 + 2") in a chain about ℓ(w) is still about ℓ(w).
       const numbersOnly = own === 'polynomial' && !exprTypes(l.expr).has('variable') && !exprTypes(r.expr).has('variable')
@@ -630,12 +640,55 @@ export class ReaderRun {
       })
     } else {
       kind = claimTag?.kind ?? guessKind(l, r)
-      const reason = decision.type === 'unsupported' ? decision.reason : decision.type === 'silent' ? `tagged as a claim, but ${decision.reason}` : 'unreadable'
-      this.pushClaim({ ...base, kind, status: skip ? 'skipped' : 'unsupported', reason })
+      const reason = judgement.type === 'unsupported' ? judgement.reason
+        : judgement.type === 'claim' ? 'unreadable'
+          : `tagged as a claim, but ${judgement.type === 'notRead' ? judgement.reason : 'it holds no recognised object'}`
+      this.pushClaim({ ...base, kind, status: skip ? 'skipped' : 'unsupported', reason: shortReason(reason) })
     }
-    this.lastStep = { lhs, rhs, rel, label, startLine, claimIndex: this.claims.length - 1, continued }
-    return kind
+    return { ...emitted, kind, claimIndex: this.claims.length - 1 }
   }
+}
+
+/** Where a step sits: its region, its row label and the prose before it. */
+interface StepPlace {
+  region: Region
+  label: string | undefined
+  startLine: number
+  definingLeadIn: boolean
+}
+
+/** Everything one step needs; kept so that a continued right-hand side can redo the step. */
+interface StepInput {
+  at: StepPlace
+  lhs: Part
+  rhs: Part
+  relation: Statement['relations'][number]
+  /** The step starts with its relation ("&= C"): its line is the relation's. */
+  continued: boolean
+  /** Kind of the chain's latest claim: later steps of a chain are checked even without objects of their own. */
+  chainKind?: ClaimKind
+}
+
+/** What a step produced, so the row after it can extend it. */
+interface EmittedStep {
+  input: StepInput
+  rhs: Part
+  kind?: ClaimKind
+  claimIndex?: number
+  notReadIndex?: number
+}
+
+/** The running relation chain of a display: its last expression and the step that ended with it. */
+interface ChainState {
+  lastSide: Part
+  kind?: ClaimKind
+  lastStep?: EmittedStep
+}
+
+/** A short excerpt of LaTeX for the not-read list. */
+function excerpt(source: string, max = 120): string {
+  const flat = source.replace(/\s+/g, ' ').trim()
+  return flat.length <= max ? flat : flat.slice(0, max - 1).trimEnd() + '…'
 }
 
 function useIds(tags: TagDirective[]): ConventionId[] {
@@ -644,30 +697,6 @@ function useIds(tags: TagDirective[]): ConventionId[] {
 
 function sliceTrim(text: string, span: { pos: number; end: number }): string {
   return text.slice(span.pos, span.end).trim()
-}
-
-type Decision = { type: 'claim' } | { type: 'unsupported'; reason: string } | { type: 'silent'; reason: string }
-
-/** Whether `lhs = rhs` is a claim, not a claim, or a claim we cannot read. */
-function decide(l: SideResult, r: SideResult): Decision {
-  if (l.ok && r.ok) {
-    if (containsObject(l.expr) || containsObject(r.expr)) return { type: 'claim' }
-    const hasVar = exprTypes(l.expr).has('variable') || exprTypes(r.expr).has('variable')
-    const atomic = (e: typeof l.expr) => e.type === 'variable' || e.type === 'integer'
-    if (hasVar && (!atomic(l.expr) || !atomic(r.expr))) return { type: 'claim' }
-    return { type: 'silent', reason: 'it holds no recognised object' }
-  }
-  if (l.ok !== r.ok) {
-    const good = (l.ok ? l : r) as Extract<SideResult, { ok: true }>
-    const bad = (l.ok ? r : l) as Extract<SideResult, { ok: false }>
-    if (bad.recognised || containsObject(good.expr) || exprTypes(good.expr).has('variable')) return { type: 'unsupported', reason: bad.reason }
-    return { type: 'silent', reason: bad.reason }
-  }
-  const lf = l as Extract<SideResult, { ok: false }>
-  const rf = r as Extract<SideResult, { ok: false }>
-  if (lf.recognised) return { type: 'unsupported', reason: lf.reason }
-  if (rf.recognised) return { type: 'unsupported', reason: rf.reason }
-  return { type: 'silent', reason: lf.reason }
 }
 
 function guessKind(l: SideResult, r: SideResult): ClaimKind {

@@ -42,7 +42,8 @@ export type Expr =
   | { type: 'multiply'; factors: Expr[] }
   | { type: 'power'; base: Expr; exponent: number }
   /** \mathfrak S_w (single) or \mathfrak S_w(x;y) (double). */
-  | { type: 'schubert'; perm: PermutationSpec; variant: SchubertVariant }
+  /** `negatedY`: written S_w(x;-y), the double polynomial with every y_j replaced by −y_j. */
+  | { type: 'schubert'; perm: PermutationSpec; variant: SchubertVariant; negatedY?: true }
   /** \mathfrak G_w, single or double. */
   | { type: 'grothendieck'; perm: PermutationSpec; variant: SchubertVariant }
   /** Stanley symmetric function F_w. */
@@ -50,8 +51,9 @@ export type Expr =
   /**
    * s_λ, e_k, h_k, m_λ, p_k. `index` is the partition (for e, h, p a one-part partition [k]).
    * `variableCount` is n when written in x_1, …, x_n; absent for symmetric functions in infinitely many variables.
+   * `skew` is μ in a skew Schur function s_{λ/μ} (family 'schur' only; λ is `index`).
    */
-  | { type: 'symmetric'; family: SymmetricFamily; index: Partition; variableCount?: number }
+  | { type: 'symmetric'; family: SymmetricFamily; index: Partition; variableCount?: number; skew?: Partition }
   /** Divided difference ∂_i applied to `arg`. */
   | { type: 'dividedDifference'; index: number; arg: Expr }
   /** Determinant of a square matrix of expressions, listed row by row. */
@@ -172,8 +174,24 @@ export interface ReadFileInfo {
   role: 'main' | 'included' | 'unused'
 }
 
+/**
+ * Math the reader met but did not understand well enough to claim anything about it.
+ * Never a verdict: it is listed apart so the author can see what was passed over.
+ */
+export interface NotReadMath {
+  file: string
+  /** 1-based, in `file`. */
+  line: number
+  /** The LaTeX as written, cut to about 120 characters. */
+  source: string
+  /** Why it was not read, in a few words. */
+  reason: string
+}
+
 export interface ReadResult {
   claims: Claim[]
   warnings: ReaderWarning[]
   files: ReadFileInfo[]
+  /** Math passed over because the reader could not be sure what it says (never counted as a verdict). */
+  notRead: NotReadMath[]
 }

@@ -105,7 +105,19 @@ export interface ReportSummary {
   otherConvention: number
   /** Claims the author asked to skip (a subset of `unsupported`). */
   skipped: number
+  /** Pieces of math the reader passed over (the length of `Report.notRead`); absent in older reports. */
+  notRead?: number
   durationMs: number
+}
+
+/** Math the reader did not understand: listed apart from the verdicts, never in the exit status. */
+export interface ReportNotRead {
+  file: string
+  /** 1-based, in `file`. */
+  line: number
+  /** A short excerpt of the LaTeX as written. */
+  source: string
+  reason: string
 }
 
 export interface ReportFile {
@@ -123,4 +135,6 @@ export interface Report {
   files: ReportFile[]
   warnings: { code: string, message: string, file?: string, line?: number }[]
   claims: ReportClaim[]
+  /** Math the reader passed over; absent in older reports. */
+  notRead?: ReportNotRead[]
 }
