@@ -21,6 +21,8 @@ export interface CheckCommand {
   fixed: Partial<ConventionSet>
   /** The main file inside a folder or archive, relative to its root. */
   main?: string
+  /** List the math the reader passed over (text output); its count is always printed. */
+  showUnread?: boolean
 }
 
 export type ParsedArguments =
@@ -41,6 +43,8 @@ Options:
   --convention <ids>     fix conventions instead of inferring them; repeatable, or comma-separated
                          (--convention xy-plus --convention perm-inverse, --convention=xy-plus,perm-inverse)
   --main <file>          the main file inside a folder or archive (default: the one with \\documentclass)
+  --show-unread          list the math Scholium did not read (its count is always printed; never
+                         part of the verdicts or the exit status)
   -h, --help             show this text
   --version              print the version of the engine
 
@@ -68,6 +72,7 @@ export function parseArguments(argv: readonly string[]): ParsedArguments {
     return null
   }
   let main: string | undefined
+  let showUnread = false
   let onlyPositional = false
   for (let i = 1; i < argv.length; i++) {
     const arg = argv[i]!
@@ -115,6 +120,10 @@ export function parseArguments(argv: readonly string[]): ParsedArguments {
         main = value
         break
       }
+      case '--show-unread':
+        if (inlineValue !== undefined) return { command: 'problem', message: '--show-unread takes no value.' }
+        showUnread = true
+        break
       default:
         return { command: 'problem', message: `unknown option "${name}"; see scholium --help.` }
     }
@@ -130,5 +139,5 @@ export function parseArguments(argv: readonly string[]): ParsedArguments {
     if (previous !== undefined && previous !== id) return { command: 'problem', message: `conventions "${previous}" and "${id}" choose differently on the same axis (${axis}); give one.` }
     fixed[axis] = id as ConventionId
   }
-  return { command: 'check', source: sources[0]!, format: format ?? 'text', fixed: fixed as Partial<ConventionSet>, ...(main !== undefined ? { main } : {}) }
+  return { command: 'check', source: sources[0]!, format: format ?? 'text', fixed: fixed as Partial<ConventionSet>, ...(main !== undefined ? { main } : {}), ...(showUnread ? { showUnread } : {}) }
 }

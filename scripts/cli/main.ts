@@ -72,7 +72,7 @@ function formatReport(report: Report, command: CheckCommand, source: SourceFiles
     case 'json': return `${JSON.stringify(report, null, 2)}\n`
     case 'junit': return renderJunit(report, locate)
     case 'annotations': return renderAnnotations(report, locate)
-    case 'text': return renderReport(report, command.source, painter(colour))
+    case 'text': return renderReport(report, command.source, painter(colour), [], { showUnread: command.showUnread === true })
   }
 }
 

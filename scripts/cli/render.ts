@@ -41,7 +41,7 @@ const SOURCE_WIDTH = 90
 const COMPUTED_WIDTH = 160
 
 /** The whole text report; `source` is what the user pointed at. */
-export function renderReport(report: Report, source: string, paint: Paint, skipped: { path: string, reason: string }[] = []): string {
+export function renderReport(report: Report, source: string, paint: Paint, skipped: { path: string, reason: string }[] = [], options: { showUnread?: boolean } = {}): string {
   const out: string[] = []
   const { summary } = report
   out.push(paint('strong', `Scholium check of ${source}`) + paint('quiet', ` — ${report.files.length} file${report.files.length === 1 ? '' : 's'}, ${summary.claims} claim${summary.claims === 1 ? '' : 's'}, engine ${report.engine.version}`))
@@ -71,6 +71,12 @@ export function renderReport(report: Report, source: string, paint: Paint, skipp
     for (const s of skipped) out.push(`  ${s.path}: left out, ${s.reason}`)
   }
 
+  const unread = report.notRead ?? []
+  if (options.showUnread && unread.length > 0) {
+    out.push('', paint('quiet', 'Not read (no verdict; Scholium could not be sure what this math says)'))
+    for (const n of unread) out.push(`  ${n.file}:${n.line}  ${shorten(oneLine(n.source), SOURCE_WIDTH)}`, paint('quiet', `      ${n.reason}`))
+  }
+
   out.push('', paint('strong', 'Summary'))
   const parts = [
     paint('good', `${summary.verified} verified`),
@@ -79,6 +85,8 @@ export function renderReport(report: Report, source: string, paint: Paint, skipp
     paint('quiet', `${summary.unsupported} unsupported${summary.skipped > 0 ? ` (${summary.skipped} skipped)` : ''}`),
   ]
   out.push(`  ${parts.join(', ')} — ${summary.durationMs} ms`)
+  const unreadCount = summary.notRead ?? unread.length
+  out.push(paint('quiet', `  ${unreadCount} piece${unreadCount === 1 ? '' : 's'} of math not read${unreadCount > 0 && !options.showUnread ? ' (list them with --show-unread)' : ''}`))
   if (summary.claims === 0) out.push('  No checkable claim was found.')
   out.push(`  Conventions: ${describeConventions(report)}`)
   out.push(paint('quiet', '  A verified example shows that the example was computed correctly; it does not prove the statement around it.'))

@@ -57,3 +57,17 @@ export function readManuscript(input: ReadManuscriptInput): ReadResult {
   const fileInfo = run.run(main)
   return { claims: run.claims, warnings: run.warnings, files: fileInfo, notRead: run.notRead }
 }
+
+/**
+ * The reader's own choice of main file, for callers that must name it before reading (the upload
+ * service). Example: `chooseMainFile({ 'a.tex': '\\documentclass{article}', 'b.tex': 'x' }) === 'a.tex'`.
+ * Undefined when the bundle holds no LaTeX file.
+ */
+export function chooseMainFile(files: Record<string, string | Uint8Array>): string | undefined {
+  const normalized: Record<string, string | Uint8Array> = {}
+  for (const [path, content] of Object.entries(files)) {
+    const norm = normalizeBundlePath(path)
+    if (norm !== undefined) normalized[norm] = content
+  }
+  return new ReaderRun(normalized, { ...DEFAULT_LIMITS }).chooseRoots(undefined)[0]
+}

@@ -124,8 +124,8 @@ describe('--json', () => {
   it('prints exactly the report: schema, documented fields, lines, verdicts and file hashes', () => {
     const r = report('check', join(FIXTURES, 'one-wrong.tex'))
     expect(r.schema).toBe('scholium.report/1')
-    expect(Object.keys(r).sort()).toEqual(['claims', 'conventions', 'engine', 'files', 'schema', 'summary', 'warnings'])
-    expect(Object.keys(r.summary).sort()).toEqual(['claims', 'durationMs', 'error', 'mismatch', 'otherConvention', 'skipped', 'unsupported', 'verified'])
+    expect(Object.keys(r).sort()).toEqual(['claims', 'conventions', 'engine', 'files', 'notRead', 'schema', 'summary', 'warnings'])
+    expect(Object.keys(r.summary).sort()).toEqual(['claims', 'durationMs', 'error', 'mismatch', 'notRead', 'otherConvention', 'skipped', 'unsupported', 'verified'])
     expect(r.summary).toMatchObject({ claims: 6, verified: 5, mismatch: 1, unsupported: 0, error: 0 })
     expect(r.claims.map((c: any) => [c.line, c.verdict])).toEqual([
       [8, 'mismatch'], [9, 'verified'], [10, 'verified'], [11, 'verified'], [14, 'verified'], [14, 'verified'],
