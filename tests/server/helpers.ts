@@ -48,6 +48,11 @@ export class Client {
     return { status: response.status, body: parsed as T, text }
   }
 
+  /** A request with extra headers, answered as the raw Response (for status and headers such as ETag). */
+  async raw(method: string, path: string, headers: Record<string, string> = {}): Promise<Response> {
+    return fetch(new URL(path, baseUrl), { method, headers: { ...headers, cookie: [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ') }, redirect: 'manual' })
+  }
+
   get<T = any>(path: string) { return this.request<T>('GET', path) }
   post<T = any>(path: string, body?: unknown) { return this.request<T>('POST', path, body) }
   delete<T = any>(path: string) { return this.request<T>('DELETE', path) }
