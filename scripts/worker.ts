@@ -12,8 +12,8 @@ import PgBoss from 'pg-boss'
 import { Piscina } from 'piscina'
 import { connectDatabase } from '../server/database/connect'
 import { createSourceStore } from '../server/storage/source-store'
-import { CHECK_JOB_OPTIONS, CHECK_QUEUE, ensureCheckQueue, type CheckJobData } from '../server/jobs/queue-names'
-import { listQueuedRuns, processCheckRun, releaseExpiredLeases, type CheckRunDeps } from '../server/jobs/check-run'
+import { CHECK_QUEUE, ensureCheckQueue, type CheckJobData } from '../server/jobs/queue-names'
+import { resendQueuedRuns, runCheck, sweepDueRuns, type CheckRunDeps, type RunStep } from '../server/services/check-runs'
 import { workerSettingsFromEnv } from '../server/jobs/worker-settings'
 import { createMailSender, smtpSettingsFromEnv } from '../server/mail/transport'
 import { checkMailSettingsFromEnv, mailIfLongRun } from '../server/mail/check-finished'
@@ -33,13 +33,22 @@ const checkMail = checkMailSettingsFromEnv(createMailSender(smtpSettingsFromEnv(
 const afterFinished = async (checkRunId: string) => {
   if (await mailIfLongRun(db, checkMail, checkRunId) === 'sent') console.log(`[worker] run ${checkRunId}: mailed the requester`)
 }
-const deps: CheckRunDeps = { db, store: createSourceStore(settings.s3), pool, workerId, leaseSeconds: settings.leaseSeconds, runBudgetMs: settings.runBudgetMs, afterFinished }
+// Fault tests only: stop for good at one step (the test then kills this process).
+const haltAt = process.env.SCHOLIUM_WORKER_HALT_AT as RunStep | undefined
+const atStep = haltAt
+  ? async (step: RunStep, checkRunId: string) => {
+    if (step !== haltAt) return
+    console.log(`[worker] halted at ${step} of run ${checkRunId}`)
+    await new Promise(() => {})
+  }
+  : undefined
+const deps: CheckRunDeps = { db, store: createSourceStore(settings.s3), pool, workerId, leaseSeconds: settings.leaseSeconds, runBudgetMs: settings.runBudgetMs, afterFinished, atStep }
 
 const onlyRun = process.argv.indexOf('--run')
 if (onlyRun !== -1) {
   const id = process.argv[onlyRun + 1]
   if (!id) throw new Error('--run needs a check run id')
-  console.log(`[worker ${workerId}] run ${id}: ${await processCheckRun(deps, id)}`)
+  console.log(`[worker ${workerId}] run ${id}: ${await runCheck(deps, id)}`)
   await pool.destroy()
   await db.destroy()
   process.exit(0)
@@ -53,18 +62,19 @@ await ensureCheckQueue(boss)
 for (let i = 0; i < settings.concurrency; i++) {
   await boss.work<CheckJobData>(CHECK_QUEUE, { batchSize: 1, pollingIntervalSeconds: 0.5 }, async ([job]) => {
     if (!job) return
-    const outcome = await processCheckRun(deps, job.data.checkRunId)
+    // Never throws: retries belong to the run's lease (server/services/check-runs.ts), not to pg-boss.
+    const outcome = await runCheck(deps, job.data.checkRunId).catch((error) => {
+      console.error(`[worker] run ${job.data.checkRunId}: could not be processed; the lease sweep retries it`, error)
+      return 'retry'
+    })
     if (outcome !== 'not-ours') console.log(`[worker] run ${job.data.checkRunId}: ${outcome}`)
   })
 }
 
-async function resend(ids: string[]) {
-  for (const checkRunId of ids) await boss.send(CHECK_QUEUE, { checkRunId } satisfies CheckJobData, CHECK_JOB_OPTIONS)
-}
-// Messages lost while no worker ran (or by a failed send) are covered by re-sending what waits.
-await resend(await listQueuedRuns(db))
+// Jobs lost while no worker ran (e.g. a reset queue) are covered by re-sending what waits.
+await resendQueuedRuns(db, boss)
 const sweeper = setInterval(() => {
-  releaseExpiredLeases(db).then(resend).catch(error => console.error('[worker] sweep failed', error))
+  sweepDueRuns(db, boss).catch(error => console.error('[worker] sweep failed', error))
 }, Math.max(1000, settings.leaseSeconds * 500))
 
 console.log(`[worker ${workerId}] consuming ${CHECK_QUEUE} with ${settings.concurrency} thread(s)`)

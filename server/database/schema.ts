@@ -104,6 +104,8 @@ export interface CheckRunsTable {
   finished_at: Timestamp | null
   lease_owner: string | null
   lease_until: Timestamp | null
+  /** Asked for by a non-member (referee, editor): never the members' current report. */
+  what_if: Generated<boolean>
 }
 
 export interface ClaimsTable {
@@ -212,5 +214,6 @@ export interface Database {
   audit_log: AuditLogTable
 }
 
+export type CheckRunRow = Selectable<CheckRunsTable>
 export type UserRow = Selectable<UsersTable>
 export type NewUser = Insertable<UsersTable>

@@ -3,8 +3,12 @@ export const CHECK_QUEUE = 'scholium-check-run'
 
 export interface CheckJobData { checkRunId: string }
 
-/** pg-boss options for a check job: retried by pg-boss when a worker throws; leases handle workers that die. */
-export const CHECK_JOB_OPTIONS = { retryLimit: 3, retryDelay: 5, expireInSeconds: 15 * 60 } as const
+/**
+ * pg-boss options for a check job. pg-boss never retries (retryLimit 0): the run row's lease
+ * decides retries and expiry (see server/services/check-runs.ts). The expiry only tidies
+ * pg-boss's own table after a killed worker; it is far above any run budget.
+ */
+export const CHECK_JOB_OPTIONS = { retryLimit: 0, expireInSeconds: 6 * 60 * 60 } as const
 
 /**
  * Creates the check queue if it is missing (the migration script does it before anything

@@ -76,8 +76,8 @@ export async function loadRunReport(db: Db, checkRunId: string): Promise<Report 
   }
 }
 
-/** The newest finished run of a revision. */
+/** The newest finished members' run of a revision: the current report (what-if runs never are). */
 export async function latestFinishedRun(db: Db, revisionId: string): Promise<{ id: string } | undefined> {
-  return db.selectFrom('check_runs').select('id').where('revision_id', '=', revisionId).where('status', '=', 'finished')
+  return db.selectFrom('check_runs').select('id').where('revision_id', '=', revisionId).where('status', '=', 'finished').where('what_if', '=', false)
     .orderBy('finished_at', 'desc').limit(1).executeTakeFirst()
 }

@@ -64,8 +64,8 @@ export async function seedDemo(db: Db, readAssets: DemoAssets): Promise<void> {
  */
 async function seedConventionDecision(db: Db, at: { manuscriptId: string, proposerId: string, agreeingId: string }): Promise<void> {
   if ((await listConventionDecisions(db, at.manuscriptId)).length > 0) return
-  const proposal = await proposeConvention(db, { manuscriptId: at.manuscriptId, userId: at.proposerId, axis: 'doubleSign', conventionId: 'xy-minus' })
-  await agreeToConvention(db, { manuscriptId: at.manuscriptId, userId: at.agreeingId, decisionId: proposal.decisionId })
+  const proposal = await proposeConvention(db, await useQueue(), { manuscriptId: at.manuscriptId, userId: at.proposerId, axis: 'doubleSign', conventionId: 'xy-minus' })
+  await agreeToConvention(db, await useQueue(), { manuscriptId: at.manuscriptId, userId: at.agreeingId, decisionId: proposal.decisionId })
 }
 
 /**

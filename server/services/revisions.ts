@@ -1,7 +1,7 @@
 import type { Db } from '../database/connect'
 import type { ApiErrorCode } from '#shared/types/api'
 import { insertRevisionWithFiles, isStorageKeyReferenced, type StoredFile } from '../repositories/revisions'
-import { insertCheckRun } from '../repositories/check-runs'
+import { requestCheckRun } from './check-runs'
 import { touchManuscript } from '../repositories/manuscripts'
 import { appendAudit } from '../repositories/audit'
 import { readUploadedFiles, UPLOAD_LIMITS, UploadRefusedError, type BundleFile, type UploadRefusalCode } from '../utils/upload-bundle'
@@ -10,8 +10,8 @@ export interface UploadedPart { filename: string, data: Buffer }
 
 /**
  * Stores a new revision: validate every file first, then put the bytes in S3
- * by content hash, then record revision, files and a queued check run in one
- * transaction, then enqueue the check. A refusal or failure at any step
+ * by content hash, then record revision, files, a queued check run and its
+ * queue job in one transaction. A refusal or failure at any step
  * leaves nothing half-stored: objects this call created and nobody else
  * references are removed again.
  */
@@ -35,9 +35,10 @@ export async function createRevision(db: Db, input: { manuscriptId: string, user
 
   let result: { revision: { id: string, number: number }, checkRunId: string }
   try {
+    const queue = await useQueue()
     result = await db.transaction().execute(async (trx) => {
       const revision = await insertRevisionWithFiles(trx, { manuscriptId: input.manuscriptId, uploadedBy: input.userId, mainFile, note: input.note, files: stored })
-      const run = await insertCheckRun(trx, { revisionId: revision.id, requestedBy: input.userId, conventions: input.conventions })
+      const run = await requestCheckRun(trx, queue, { revisionId: revision.id, requestedBy: input.userId, conventions: input.conventions })
       await touchManuscript(trx, input.manuscriptId)
       await appendAudit(trx, {
         actorId: input.userId,
@@ -53,7 +54,6 @@ export async function createRevision(db: Db, input: { manuscriptId: string, user
     await removeUnreferenced(db, createdKeys)
     throw error
   }
-  await enqueueCheckRun(result.checkRunId).catch(error => console.error('[queue] enqueue failed; the run stays queued', error))
   return { id: result.revision.id, number: result.revision.number, checkRunId: result.checkRunId, files: stored.map(f => ({ path: f.path, sha256: f.sha256, sizeBytes: f.sizeBytes })) }
 }
 

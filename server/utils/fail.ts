@@ -1,5 +1,5 @@
-import { createError, getValidatedRouterParams, readValidatedBody, type H3Event } from 'h3'
-import type { ZodError, ZodType } from 'zod'
+import { createError, getValidatedQuery, getValidatedRouterParams, readValidatedBody, type H3Event } from 'h3'
+import { z, type ZodError, type ZodType } from 'zod'
 import type { ApiErrorCode, ApiErrorData } from '#shared/types/api'
 
 /**
@@ -19,10 +19,32 @@ export async function readBodyAs<T>(event: H3Event, schema: ZodType<T>): Promise
   return orInvalid(await readValidatedBody(event, body => schema.safeParse(body ?? {})))
 }
 
+/** The HTTP status a domain error's code stands for (server/plugins/domain-errors.ts applies it). */
+export function httpStatusOf(code: ApiErrorCode): number {
+  return DOMAIN_STATUS[code] ?? (code.startsWith('upload-') ? 422 : 400)
+}
+
+const DOMAIN_STATUS: Partial<Record<ApiErrorCode, number>> = {
+  'invalid-input': 400,
+  'not-signed-in': 401,
+  'forbidden': 403,
+  'not-found': 404,
+  'conflict': 409,
+  'rate-limited': 429,
+}
+
 /** Validates route parameters the same way. */
 export async function routeParamsAs<T>(event: H3Event, schema: ZodType<T>): Promise<T> {
   return orInvalid(await getValidatedRouterParams(event, params => schema.safeParse(params)))
 }
+
+/** Validates the query string the same way. Example: `const { run } = await queryAs(event, z.object({ run: z.string().uuid().optional() }))` */
+export async function queryAs<T>(event: H3Event, schema: ZodType<T>): Promise<T> {
+  return orInvalid(await getValidatedQuery(event, query => schema.safeParse(query)))
+}
+
+/** Route parameters `{ id }` where the id is a UUID: `await routeParamsAs(event, IdParams)`. */
+export const IdParams = z.object({ id: z.string().uuid() })
 
 function orInvalid<T>(parsed: { success: true, data: T } | { success: false, error: ZodError }): T {
   if (parsed.success) return parsed.data

@@ -1,10 +1,13 @@
 import PgBoss from 'pg-boss'
 
-import { CHECK_JOB_OPTIONS, CHECK_QUEUE, ensureCheckQueue, type CheckJobData } from '../jobs/queue-names'
+import { ensureCheckQueue } from '../jobs/queue-names'
 
 let boss: Promise<PgBoss> | undefined
 
-/** The process's pg-boss client, started on first use against the app database. */
+/**
+ * The process's pg-boss client, started on first use against the app database. Check runs
+ * are sent through server/services/check-runs.ts (`requestCheckRun`), inside the caller's transaction.
+ */
 export function useQueue(): Promise<PgBoss> {
   boss ??= (async () => {
     const { databaseUrl } = useRuntimeConfig()
@@ -15,12 +18,6 @@ export function useQueue(): Promise<PgBoss> {
     return instance
   })()
   return boss
-}
-
-/** Puts a check run on the queue. The run row already exists, so a lost message can be re-sent from it. */
-export async function enqueueCheckRun(checkRunId: string): Promise<void> {
-  const queue = await useQueue()
-  await queue.send(CHECK_QUEUE, { checkRunId } satisfies CheckJobData, CHECK_JOB_OPTIONS)
 }
 
 export async function stopQueue(): Promise<void> {

@@ -111,6 +111,8 @@ export interface CheckRunView {
   finishedAt: string | null
   error: string | null
   summary: Record<string, unknown>
+  /** A re-check asked for by a non-member (referee, editor); it never replaces the members' report. */
+  whatIf: boolean
 }
 
 export interface RevisionView {

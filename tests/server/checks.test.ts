@@ -82,34 +82,84 @@ describe('checking an uploaded revision', () => {
   })
 })
 
-describe('a worker killed mid-run', () => {
-  it('leaves a run that another worker completes, with no claim lost or duplicated', async () => {
-    // Double Schubert polynomials of permutations of S_7 take a fraction of a second each,
-    // so the run lasts long enough to be killed in the middle.
-    // (Chosen to take 0.2–1 s each here: about 5 s in all.)
-    const perms = ['1536274', '3615274', '3542716', '3164725', '2461735', '3524716', '1462735', '2531746', '1364725', '2451763']
-    const tex = ['\\documentclass{article}', '\\begin{document}', ...perms.map(p => `$\\mathfrak{S}_{${p}}(x;y) = (x_1 - y_1)(x_2 - y_1)$`), '\\end{document}', ''].join('\n')
-    const expectedClaims = readManuscript({ files: { 'slow.tex': tex } }).claims.length
-    expect(expectedClaims).toBe(perms.length)
+// Double Schubert polynomials of permutations of S_7 take a fraction of a second each,
+// so the run lasts long enough to be killed in the middle.
+// (Chosen to take 0.2–1 s each here: about 5 s in all.)
+const SLOW_PERMS = ['1536274', '3615274', '3542716', '3164725', '2461735', '3524716', '1462735', '2531746', '1364725', '2451763']
+const SLOW_TEX = ['\\documentclass{article}', '\\begin{document}', ...SLOW_PERMS.map(p => `$\\mathfrak{S}_{${p}}(x;y) = (x_1 - y_1)(x_2 - y_1)$`), '\\end{document}', ''].join('\n')
 
-    const me = await newMember('killer')
-    const { body: m } = await me.client.post('/api/manuscripts', { title: 'Slow draft' })
-    const upload = await me.client.post(`/api/manuscripts/${m.id}/revisions`, filesForm([{ name: 'slow.tex', content: tex }]))
-    await waitForRun(upload.body.checkRunId, status => status === 'finished')
-    // A run that is not on the queue: only the worker started here will take it.
-    const { id: runId } = await db.insertInto('check_runs').values({ revision_id: upload.body.id, conventions: '{}', timings: '{}', summary: '{}' }).returning('id').executeTakeFirstOrThrow()
+/** A finished revision of SLOW_TEX plus a second run of it that is not on the queue. */
+async function unqueuedSlowRun(): Promise<string> {
+  const me = await newMember('killer')
+  const { body: m } = await me.client.post('/api/manuscripts', { title: 'Slow draft' })
+  const upload = await me.client.post(`/api/manuscripts/${m.id}/revisions`, filesForm([{ name: 'slow.tex', content: SLOW_TEX }]))
+  await waitForRun(upload.body.checkRunId, status => status === 'finished')
+  // Only the worker started by the test takes it, until its lease runs out.
+  const { id } = await db.insertInto('check_runs').values({ revision_id: upload.body.id, conventions: '{}', timings: '{}', summary: '{}' }).returning('id').executeTakeFirstOrThrow()
+  return id
+}
 
-    const worker = spawn(process.execPath, ['--import', 'tsx', 'scripts/worker.ts', '--run', runId], { env: { ...process.env, SCHOLIUM_LEASE_SECONDS: '3' }, stdio: 'ignore' })
+/** Starts `scripts/worker.ts --run <id>`; resolves once its output matches `ready` (if given). */
+function startWorker(runId: string, env: Record<string, string>, ready?: RegExp) {
+  const worker = spawn(process.execPath, ['--import', 'tsx', 'scripts/worker.ts', '--run', runId], { env: { ...process.env, SCHOLIUM_LEASE_SECONDS: '3', ...env }, stdio: ['ignore', 'pipe', 'inherit'] })
+  const exited = new Promise(resolve => worker.once('exit', resolve))
+  const reached = new Promise<void>((resolve, reject) => {
+    let out = ''
+    worker.stdout!.on('data', (chunk) => {
+      out += String(chunk)
+      if (ready?.test(out)) resolve()
+    })
+    worker.once('exit', () => reject(new Error(`worker exited before ${ready}: ${out}`)))
+  })
+  // Killing a worker that was never waited on is expected, not an unhandled rejection.
+  if (!ready) reached.catch(() => {})
+  return { worker, exited, reached }
+}
+
+async function expectCompletedOnceByAnotherWorker(runId: string) {
+  // The test profile's own worker sweeps expired leases and puts the run back on the queue.
+  const run = await waitForRun(runId, status => status === 'finished', 90_000)
+  expect(run.attempts).toBeGreaterThanOrEqual(2)
+  const claims = await db.selectFrom('claims').select(['ordinal', 'line']).where('check_run_id', '=', runId).orderBy('ordinal').execute()
+  expect(claims.map(c => c.ordinal)).toEqual(SLOW_PERMS.map((_, i) => i))
+  expect(claims.map(c => c.line)).toEqual(SLOW_PERMS.map((_, i) => i + 3))
+}
+
+describe('a worker killed at each step of a run', () => {
+  it('the slow manuscript has one claim per line', () => {
+    expect(readManuscript({ files: { 'slow.tex': SLOW_TEX } }).claims.length).toBe(SLOW_PERMS.length)
+  })
+
+  it('killed right after taking the lease: another worker completes the run, nothing lost or duplicated', async () => {
+    const runId = await unqueuedSlowRun()
+    const { worker, exited, reached } = startWorker(runId, { SCHOLIUM_WORKER_HALT_AT: 'claimed' }, /halted at claimed/)
+    await reached
+    const held = await db.selectFrom('check_runs').select(['status', 'lease_owner']).where('id', '=', runId).executeTakeFirstOrThrow()
+    expect(held.status).toBe('running')
+    expect(held.lease_owner).not.toBeNull()
+    worker.kill('SIGKILL')
+    await exited
+    await expectCompletedOnceByAnotherWorker(runId)
+  })
+
+  it('killed mid-evaluation: another worker completes the run, nothing lost or duplicated', async () => {
+    const runId = await unqueuedSlowRun()
+    const { worker, exited } = startWorker(runId, {})
     await waitForRun(runId, (status, done) => status === 'running' && done >= 2)
     worker.kill('SIGKILL')
-    await new Promise(resolve => worker.once('exit', resolve))
+    await exited
     expect((await db.selectFrom('check_runs').select('status').where('id', '=', runId).executeTakeFirstOrThrow()).status).toBe('running')
+    await expectCompletedOnceByAnotherWorker(runId)
+  })
 
-    // The test profile's own worker sweeps expired leases and puts the run back on the queue.
-    const run = await waitForRun(runId, status => status === 'finished', 90_000)
-    expect(run.attempts).toBeGreaterThanOrEqual(2)
-    const claims = await db.selectFrom('claims').select(['ordinal', 'line']).where('check_run_id', '=', runId).orderBy('ordinal').execute()
-    expect(claims.map(c => c.ordinal)).toEqual(perms.map((_, i) => i))
-    expect(claims.map(c => c.line)).toEqual(perms.map((_, i) => i + 3))
+  it('killed inside the final transaction, claims written but not committed: nothing half-written survives', async () => {
+    const runId = await unqueuedSlowRun()
+    const { worker, exited, reached } = startWorker(runId, { SCHOLIUM_WORKER_HALT_AT: 'committing' }, /halted at committing/)
+    await reached
+    // The claims are inserted in the open transaction: nobody else sees them yet.
+    expect(await db.selectFrom('claims').select('id').where('check_run_id', '=', runId).execute()).toEqual([])
+    worker.kill('SIGKILL')
+    await exited
+    await expectCompletedOnceByAnotherWorker(runId)
   })
 })

@@ -60,6 +60,11 @@ export class Client {
     return other
   }
 
+  /** A request with extra headers, answered as the raw Response (for status and headers such as ETag). */
+  async raw(method: string, path: string, headers: Record<string, string> = {}): Promise<Response> {
+    return fetch(new URL(path, baseUrl), { method, headers: { ...headers, cookie: this.cookieHeader() }, redirect: 'manual' })
+  }
+
   get<T = any>(path: string) { return this.request<T>('GET', path) }
   post<T = any>(path: string, body?: unknown) { return this.request<T>('POST', path, body) }
   delete<T = any>(path: string) { return this.request<T>('DELETE', path) }

@@ -1,14 +1,17 @@
 import { z } from 'zod'
 import { setManuscriptConventions } from '../../../services/conventions'
 
-const Params = z.object({ id: z.string() })
 const Body = z.object({ conventions: ConventionChoices })
 
-/** Fix the manuscript's conventions (axes left out are inferred) and re-check its newest revision. */
+/**
+ * The owner fixes the manuscript's conventions (axes left out are inferred) and re-checks its
+ * newest revision; the change is audited. Coauthors change conventions through a decision
+ * (convention-decisions), which every member accepts.
+ */
 export default defineEventHandler(async (event) => {
-  const { id } = await routeParamsAs(event, Params)
-  const grant = await authorize(event, { manuscript: id })
+  const { id } = await routeParamsAs(event, IdParams)
+  const grant = await authorize(event, { manuscript: id, owner: true })
   const { conventions } = await readBodyAs(event, Body)
-  const result = await setManuscriptConventions(useDb(), { manuscriptId: id, actorId: grant.user.id, conventions: conventions as Record<string, string> })
+  const result = await setManuscriptConventions(useDb(), await useQueue(), { manuscriptId: id, actorId: grant.user.id, conventions: conventions as Record<string, string> })
   return { conventions: result.conventions, checkRunId: result.checkRunId }
 })

@@ -1,23 +1,26 @@
 import { z } from 'zod'
-import { insertCheckRun } from '../../../repositories/check-runs'
+import { requestCheckRun } from '../../../services/check-runs'
 import { appendAudit } from '../../../repositories/audit'
 
-const Params = z.object({ id: z.string() })
 const Body = z.object({ conventions: ConventionChoices.optional() })
 
-/** Re-check a revision, optionally fixing conventions for this run only. */
+/**
+ * Re-check a revision, optionally fixing conventions for this run only. A referee's or an
+ * editor's re-check is a what-if run: its report is theirs to read by run id, and the
+ * members' current report stays as it was.
+ */
 export default defineEventHandler(async (event) => {
-  const { id } = await routeParamsAs(event, Params)
+  const { id } = await routeParamsAs(event, IdParams)
   const grant = await authorize(event, { revision: id })
   const body = await readBodyAs(event, Body)
   const conventions = { ...grant.conventions, ...body.conventions }
-  const db = useDb()
-  const run = await db.transaction().execute(async (trx) => {
-    const created = await insertCheckRun(trx, { revisionId: id, requestedBy: grant.user.id, conventions })
-    await appendAudit(trx, { actorId: grant.user.id, action: 'check.requested', subjectType: 'revision', subjectId: id, details: { conventions, as: grant.viewer } })
+  const whatIf = grant.viewer !== 'member'
+  const queue = await useQueue()
+  const run = await useDb().transaction().execute(async (trx) => {
+    const created = await requestCheckRun(trx, queue, { revisionId: id, requestedBy: grant.user.id, conventions, whatIf })
+    await appendAudit(trx, { actorId: grant.user.id, action: 'check.requested', subjectType: 'revision', subjectId: id, details: { conventions, as: grant.viewer, whatIf } })
     return created
   })
-  await enqueueCheckRun(run.id)
   setResponseStatus(event, 202)
-  return { checkRunId: run.id }
+  return { checkRunId: run.id, whatIf }
 })

@@ -1,23 +1,49 @@
+import { createHash } from 'node:crypto'
 import { z } from 'zod'
 import type { RevisionReportView } from '#shared/types/api'
 import { revisionViews } from '../../../services/views'
+import { checkRunProgress } from '../../../services/check-runs'
+import { findCheckRun } from '../../../repositories/check-runs'
 import { latestFinishedRun, loadRunReport } from '../../../repositories/claims'
 
-const Params = z.object({ id: z.string() })
+const Query = z.object({ run: z.string().uuid().optional() })
 
-/** A revision's newest run and the report of its newest finished run (same JSON schema as the CLI's). */
-export default defineEventHandler(async (event): Promise<RevisionReportView> => {
-  const { id } = await routeParamsAs(event, Params)
+/**
+ * A revision's newest run and the report of its newest finished run (same JSON schema as the
+ * CLI's); with `?run=<id>`, that run of the revision instead (e.g. a referee's what-if run).
+ * A finished run's report never changes, so once the run shown is finished the answer has an
+ * ETag and a matching If-None-Match gets 304 without the report being loaded.
+ */
+export default defineEventHandler(async (event): Promise<RevisionReportView | null> => {
+  const { id } = await routeParamsAs(event, IdParams)
+  const { run: runId } = await queryAs(event, Query)
   const grant = await authorize(event, { revision: id })
   const db = useDb()
   const [revision] = await revisionViews(db, grant.manuscriptId, id)
   if (!revision) fail(404, 'not-found', 'No such revision')
-  const finished = await latestFinishedRun(db, id)
-  return {
+  let run = revision.latestRun
+  let reportRunId = (await latestFinishedRun(db, id))?.id
+  if (runId) {
+    const row = await findCheckRun(db, runId)
+    if (!row || row.revision_id !== id) fail(404, 'not-found', 'No such check run')
+    run = await checkRunProgress(db, runId)
+    reportRunId = row.status === 'finished' ? row.id : undefined
+  }
+  const head = {
     manuscript: { id: grant.manuscriptId, title: grant.title },
     revision: { id, number: revision.number, mainFile: revision.mainFile, files: revision.files },
     viewer: grant.viewer,
-    run: revision.latestRun,
-    report: finished ? await loadRunReport(db, finished.id) : null,
+    run,
   }
+  if (run && run.status === 'finished' && run.id === reportRunId) {
+    const etag = `"${createHash('sha256').update(JSON.stringify(head)).digest('base64url').slice(0, 27)}"`
+    setResponseHeader(event, 'etag', etag)
+    // Private: the answer depends on who asks (viewer); revalidate so a new run is seen at once.
+    setResponseHeader(event, 'cache-control', 'private, no-cache')
+    if (getRequestHeader(event, 'if-none-match')?.split(/\s*,\s*/).includes(etag)) {
+      setResponseStatus(event, 304)
+      return null
+    }
+  }
+  return { ...head, report: reportRunId ? await loadRunReport(db, reportRunId) : null }
 })

@@ -2,7 +2,7 @@ import { z } from 'zod'
 import { SUBMISSION_SORT_KEYS, SUBMISSION_STATUSES, type VenueSubmissionRow, type VenueSubmissionsPage } from '#shared/types/editorial'
 import { findVenue } from '../../../repositories/venues'
 import { listRefereesForSubmissions, pageSubmissionsForVenue } from '../../../repositories/submissions'
-import { latestRunsByRevision } from '../../../repositories/check-runs'
+import { latestRunsByRevision } from '../../../services/check-runs'
 import { verdictCountsOf } from '../../../services/audit-summary'
 
 const Params = z.object({ id: z.string() })

@@ -13,7 +13,7 @@ export default defineEventHandler(async (event) => {
   const { id } = await routeParamsAs(event, Params)
   const grant = await authorize(event, { manuscript: id })
   const { axis, conventionId } = await readBodyAs(event, Body)
-  const outcome = await proposeConvention(useDb(), { manuscriptId: id, userId: grant.user.id, axis, conventionId })
+  const outcome = await proposeConvention(useDb(), await useQueue(), { manuscriptId: id, userId: grant.user.id, axis, conventionId })
   setResponseStatus(event, 201)
   return outcome
 })

@@ -8,5 +8,5 @@ export default defineEventHandler(async (event) => {
   const { id, decisionId } = await routeParamsAs(event, Params)
   const grant = await authorize(event, { manuscript: id })
   if (!isUuid(decisionId)) fail(404, 'not-found', 'No such convention decision')
-  return agreeToConvention(useDb(), { manuscriptId: id, userId: grant.user.id, decisionId })
+  return agreeToConvention(useDb(), await useQueue(), { manuscriptId: id, userId: grant.user.id, decisionId })
 })
