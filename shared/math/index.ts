@@ -46,4 +46,5 @@ export {
 export * from './symmetric'
 export * from './stanley'
 export * from './back-stable'
+export * from './key'
 export * from './determinant'
