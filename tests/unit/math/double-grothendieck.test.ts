@@ -2,7 +2,7 @@ import { describe, it, expect } from 'vitest'
 import fc from 'fast-check'
 import {
   Polynomial, parsePermutation, allPermutations, grothendieckPolynomial, doubleSchubertPolynomial, schubertPolynomial,
-  doubleGrothendieckPolynomial, doubleGrothendieckOminus, kOplus, rationalsEqual, reduceRational, betaCoefficients,
+  doubleGrothendieckPolynomial, doubleGrothendieckOminus, doubleGrothendieckByHecke, kOplus, rationalsEqual, reduceRational, betaCoefficients,
   betaZeroSpecialisation, checkBetaZeroSpecialisation, grothendieckExpansion, grothendieckProduct,
   grothendieckProductFormal, combinationEntries, InvalidArgumentError, type SchubertCombination, type Permutation,
 } from '../../../shared/math'
@@ -43,6 +43,9 @@ describe('double Grothendieck polynomials, ⊕ normalisation (k-oplus)', () => {
     let top = Polynomial.one()
     for (let i = 1; i <= 3; i++) for (let j = 1; i + j <= 4; j++) top = top.mul(kOplus(x(i), y(j), -1))
     expect(doubleGrothendieckPolynomial(P('4321'), -1).equals(top)).toBe(true)
+  })
+  it('the 0-Hecke Cauchy route agrees with the divided-difference route (all of S_4, β = ±1)', () => {
+    for (const beta of [-1, 1]) for (const w of S4) expect(doubleGrothendieckByHecke(w, beta).equals(doubleGrothendieckPolynomial(w, beta)), `w=${w}`).toBe(true)
   })
   it('a fractional β is refused with a clear error', () => {
     expect(() => doubleGrothendieckPolynomial(P('21'), 0.5)).toThrow(InvalidArgumentError)
