@@ -8,7 +8,8 @@
  *   (3) after the substitution x_1 = −y_1, f no longer depends on y_1 (hence not on x_1 either).
  * With this sign the super power sums are p_r(x) − (−1)^r p_r(y) and the generating function of
  * the elementary ones is ∏(1 + x_i t) / ∏(1 − y_j t). Other variables (x_{k+1}, y_{k+1}, …) are
- * treated as constants. The numbers of x- and y-variables are both k here.
+ * treated as constants. The numbers of x- and y-variables are both k here. determinant.ts has the
+ * boolean isSupersymmetric with a choice of sign; this module adds the named failing condition.
  */
 import { Polynomial } from './polynomial'
 import { InvalidArgumentError } from './errors'
@@ -40,7 +41,3 @@ export function checkSupersymmetry(f: Polynomial, k: number, budget?: Budget | B
   return { supersymmetric: true, message: `supersymmetric in ${sets}` }
 }
 
-/** Whether f is supersymmetric in x_1..x_k; y_1..y_k (see checkSupersymmetry). */
-export function isSupersymmetric(f: Polynomial, k: number, budget?: Budget | BudgetMeter): boolean {
-  return checkSupersymmetry(f, k, budget).supersymmetric
-}
