@@ -40,6 +40,17 @@ export const CONVENTION_AXES = {
       'beta-plus': 'β = +1',
     },
   },
+  /**
+   * Factors of double Grothendieck polynomials (shared/math/double-grothendieck.ts). β formal is not
+   * a choice here: with deg β = −1 the formal value is read off the value at β = 1 by degree.
+   */
+  kFactor: {
+    label: 'Double Grothendieck factors',
+    choices: {
+      'k-oplus': 'top class ∏ (x_i ⊕ y_j), x ⊕ y = x + y + βxy; at β = 0 this is S_w(x; −y)',
+      'k-ominus': 'top class ∏ (x_i ⊖ y_j), x ⊖ y = (x − y)/(1 + βy); at β = 0 this is S_w(x; y)',
+    },
+  },
 } as const
 
 /**
@@ -73,6 +84,7 @@ export const REFERENCE_CONVENTIONS: ConventionSet = {
   indexing: 'perm-w',
   partition: 'shape-rows',
   beta: 'beta-minus',
+  kFactor: 'k-oplus',
 }
 
 export const ALL_CONVENTION_IDS: readonly ConventionId[] = Object.values(CONVENTION_AXES).flatMap(
