@@ -5,7 +5,7 @@ import vue from 'eslint-plugin-vue'
 import globals from 'globals'
 
 export default tseslint.config(
-  { ignores: ['node_modules/**', '.nuxt/**', '.output/**', 'storage/**', 'coverage/**', 'test-results/**', '**/.scratch/**', '.cache/**'] },
+  { ignores: ['node_modules/**', 'dist/**', '.nuxt/**', '.output/**', 'storage/**', 'coverage/**', 'test-results/**', '**/.scratch/**', '.cache/**'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   ...vue.configs['flat/recommended'],

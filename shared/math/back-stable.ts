@@ -22,6 +22,7 @@
  * with the polynomial parts collected. Truncating both symmetric factors to m variables and renaming
  * (x_{≤0}, y_{≤0} ↦ x_1..x_m, y_1..y_m; x_i, y_i ↦ x_{m+i}, y_{m+i}) gives S_{1^m × w}(x; y).
  */
+import { mulChecked } from './coefficient'
 import { Permutation } from './permutation'
 import { Polynomial } from './polynomial'
 import { schubertPolynomial } from './schubert'
@@ -88,7 +89,7 @@ export interface DoubleBackStableTerm {
 function stanleyOrOne(u: Permutation, sign: number, meter: BudgetMeter): SchurCombination {
   if (u.length() === 0) return new Map([['', sign]])
   const f = stanleySymmetricFunction(u, { budget: meter })
-  return new Map([...f].map(([k, c]) => [k, sign * c]))
+  return new Map([...f].map(([k, c]) => [k, mulChecked(sign, c)]))
 }
 
 /** S_v(−y): S_v with x_i ↦ −y_i. */

@@ -30,7 +30,7 @@ import { grothendieckOperator } from './divided-difference'
 import { grothendieckPolynomial } from './grothendieck'
 import { climbToDominant, doubleSchubertPolynomial } from './schubert'
 import { schubertExpansion, type SchubertCombination } from './schubert-basis'
-import { addChecked, mulChecked } from './coefficient'
+import { addChecked, mulChecked, negateCoefficient, type Coefficient } from './coefficient'
 import { InvalidArgumentError, NotInSpanError } from './errors'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 
@@ -93,7 +93,7 @@ function permutationFromKey(key: string): Permutation {
 function divideByOnePlusBetaY(f: Polynomial, j: number, beta: number): Polynomial | undefined {
   if (beta === 0) return f
   // Group f = Σ_k f_k y_j^k; then f = (1 + βy_j) Σ q_k y_j^k with q_k = f_k − β q_{k−1}.
-  const byPower = new Map<number, Map<string, number>>()
+  const byPower = new Map<number, Map<string, Coefficient>>()
   let top = 0
   for (const [key, c] of f.terms) {
     const e = decodeMonomial(key)
@@ -105,11 +105,11 @@ function divideByOnePlusBetaY(f: Polynomial, j: number, beta: number): Polynomia
     m.set(encodeMonomial(e.x, e.y), c)
   }
   if (f.isZero()) return f
-  const out = new Map<string, number>()
-  let prev = new Map<string, number>()
+  const out = new Map<string, Coefficient>()
+  let prev = new Map<string, Coefficient>()
   for (let k = 0; k <= top; k++) {
     const q = new Map(byPower.get(k) ?? [])
-    for (const [key, c] of prev) accumulate(q, key, -mulChecked(beta, c))
+    for (const [key, c] of prev) accumulate(q, key, negateCoefficient(mulChecked(beta, c)))
     if (k === top) return q.size === 0 ? new Polynomial(out) : undefined
     for (const [key, c] of q) {
       const e = decodeMonomial(key)
@@ -233,7 +233,7 @@ export function grothendieckProduct(u: Permutation, v: Permutation, beta = -1, b
 }
 
 /** G_u G_v with β formal: each w with its integer c and the power of β, c^w_{uv}(β) = c · β^{power}. */
-export function grothendieckProductFormal(u: Permutation, v: Permutation, budget?: Budget | BudgetMeter): { permutation: Permutation; coefficient: number; betaPower: number }[] {
+export function grothendieckProductFormal(u: Permutation, v: Permutation, budget?: Budget | BudgetMeter): { permutation: Permutation; coefficient: Coefficient; betaPower: number }[] {
   const base = u.length() + v.length()
   return [...grothendieckProduct(u, v, 1, budget)].map(([key, c]) => {
     const w = permutationFromKey(key)

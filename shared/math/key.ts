@@ -19,7 +19,7 @@ import { Polynomial, accumulate, decodeMonomial } from './polynomial'
 import { dividedDifference, isobaricDividedDifference } from './divided-difference'
 import { Permutation } from './permutation'
 import { schubertPolynomial } from './schubert'
-import { mulChecked } from './coefficient'
+import { mulChecked, negateCoefficient, type Coefficient } from './coefficient'
 import { InvalidArgumentError, NotInSpanError } from './errors'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 
@@ -27,7 +27,7 @@ import { toMeter, type Budget, type BudgetMeter } from './budget'
 export type WeakComposition = number[]
 
 /** Σ c_α κ_α (or Σ c_α A_α), keyed by the composition with trailing zeros dropped, e.g. "0,2,1". */
-export type CompositionCombination = Map<string, number>
+export type CompositionCombination = Map<string, Coefficient>
 
 /** Canonical key of a weak composition: trailing zeros dropped, comma-separated; e.g. [0,2,1,0] ↦ "0,2,1". */
 export function compositionKey(alpha: readonly number[]): string {
@@ -114,7 +114,7 @@ function triangularExpansion(f: Polynomial, basis: (alpha: number[]) => Polynomi
     }
     const c = rest.get(bestKey)!
     out.set(compositionKey(best!), c)
-    for (const [k, v] of basis(best!).terms) accumulate(rest, k, -mulChecked(c, v))
+    for (const [k, v] of basis(best!).terms) accumulate(rest, k, negateCoefficient(mulChecked(c, v)))
     meter.terms(rest.size)
   }
   return out

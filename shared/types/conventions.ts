@@ -66,6 +66,8 @@ export const CONVENTION_CHOICE_TEX: Partial<Record<string, string>> = {
   'shape-columns': 'a partition lists column lengths: the transpose $\\lambda\'$, with $\\omega$ applied',
   'beta-minus': '$\\beta = -1$',
   'beta-plus': '$\\beta = +1$',
+  'k-oplus': 'top class $\\prod (x_i \\oplus y_j)$ with $x \\oplus y = x + y + \\beta xy$; at $\\beta = 0$ this is $\\mathfrak{S}_w(x; -y)$',
+  'k-ominus': 'top class $\\prod (x_i \\ominus y_j)$ with $x \\ominus y = (x - y)/(1 + \\beta y)$; at $\\beta = 0$ this is $\\mathfrak{S}_w(x; y)$',
 }
 
 export type ConventionAxis = keyof typeof CONVENTION_AXES
