@@ -1,10 +1,10 @@
 import type { Db } from '../database/connect'
-import type { ApiErrorCode } from '#shared/types/api'
+import type { UploadErrorCode } from '#shared/types/uploads'
 import { insertRevisionWithFiles, isStorageKeyReferenced, type StoredFile } from '../repositories/revisions'
 import { insertCheckRun } from '../repositories/check-runs'
 import { touchManuscript } from '../repositories/manuscripts'
 import { appendAudit } from '../repositories/audit'
-import { readUploadedFiles, UPLOAD_LIMITS, UploadRefusedError, type BundleFile, type UploadRefusalCode } from '../utils/upload-bundle'
+import { readUploadedFiles, UPLOAD_LIMITS, UploadRefusedError, type BundleFile, type UploadRefusalCode } from '../uploads'
 
 export interface UploadedPart { filename: string, data: Buffer }
 
@@ -64,7 +64,7 @@ async function readOrRefuse(parts: UploadedPart[]): Promise<BundleFile[]> {
   catch (error) {
     if (error instanceof UploadRefusedError) {
       // The message is ours alone; the (escaped) entry name travels separately, never inside it.
-      fail(422, `upload-${error.code}` as ApiErrorCode, REFUSAL_MESSAGES[error.code], error.entry ? { entry: error.entry } : {})
+      fail(422, `upload-${error.code}` satisfies UploadErrorCode, REFUSAL_MESSAGES[error.code], error.entry ? { entry: error.entry } : {})
     }
     throw error
   }

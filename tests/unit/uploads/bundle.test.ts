@@ -21,7 +21,7 @@ import {
   type UploadLimits,
   type UploadRefusalCode,
   type UploadedFile,
-} from '../../../server/utils/upload-bundle'
+} from '../../../server/uploads'
 
 const MiB = 1024 * 1024
 
