@@ -4,9 +4,10 @@ import { insertRevisionWithFiles, isStorageKeyReferenced, type StoredFile } from
 import { insertCheckRun } from '../repositories/check-runs'
 import { touchManuscript } from '../repositories/manuscripts'
 import { appendAudit } from '../repositories/audit'
-import { readUploadedFiles, UPLOAD_LIMITS, UploadRefusedError, type BundleFile, type UploadRefusalCode } from '../uploads'
+import { readUploadedFiles, UPLOAD_LIMITS, UploadRefusedError, type BundleFile, type UploadedFile, type UploadRefusalCode } from '../uploads'
 
-export interface UploadedPart { filename: string, data: Buffer }
+/** A file held in memory (demo seed, tests); the web server passes files received to disk. */
+export type UploadedPart = Extract<UploadedFile, { data: Buffer }>
 
 /**
  * Stores a new revision: validate every file first, then put the bytes in S3
@@ -15,7 +16,7 @@ export interface UploadedPart { filename: string, data: Buffer }
  * leaves nothing half-stored: objects this call created and nobody else
  * references are removed again.
  */
-export async function createRevision(db: Db, input: { manuscriptId: string, userId: string, parts: UploadedPart[], note: string, conventions: Record<string, string> }) {
+export async function createRevision(db: Db, input: { manuscriptId: string, userId: string, parts: UploadedFile[], note: string, conventions: Record<string, string> }) {
   const files = await readOrRefuse(input.parts)
   const mainFile = guessMainFile(files)
   const createdKeys: string[] = []
@@ -57,7 +58,7 @@ export async function createRevision(db: Db, input: { manuscriptId: string, user
   return { id: result.revision.id, number: result.revision.number, checkRunId: result.checkRunId, files: stored.map(f => ({ path: f.path, sha256: f.sha256, sizeBytes: f.sizeBytes })) }
 }
 
-async function readOrRefuse(parts: UploadedPart[]): Promise<BundleFile[]> {
+async function readOrRefuse(parts: UploadedFile[]): Promise<BundleFile[]> {
   try {
     return await readUploadedFiles(parts)
   }

@@ -14,6 +14,7 @@ export type ApiErrorCode =
   | 'bad-credentials'
   | 'rate-limited'
   | UploadErrorCode // upload-<refusal code>, see shared/types/uploads.ts
+  | 'body-too-large'
   | 'storage-unavailable'
   | 'mail-inbox-unavailable'
   | 'conflict'

@@ -25,6 +25,11 @@ export interface ApiResponse<T = unknown> { status: number, body: T, text: strin
 export class Client {
   private cookies = new Map<string, string>()
 
+  /** The Cookie header this client sends, for tests that speak raw HTTP. */
+  cookieHeader(): string {
+    return [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ')
+  }
+
   async request<T = any>(method: string, path: string, body?: unknown): Promise<ApiResponse<T>> {
     const headers: Record<string, string> = { cookie: [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ') }
     let payload: BodyInit | undefined
