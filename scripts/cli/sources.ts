@@ -9,9 +9,8 @@
  */
 import { lstat, readdir, readFile, realpath, stat } from 'node:fs/promises'
 import { basename, isAbsolute, join, relative, sep } from 'node:path'
-import {
-  archiveKindOf, readUploadBundle, UPLOAD_LIMITS, UploadRefusedError, type BundleFile,
-} from '../../server/utils/upload-bundle'
+import { archiveKindOf, readUploadBundle, UploadRefusedError, type BundleFile } from '../../server/uploads'
+import { KNOWN_ARCHIVE_EXTENSIONS, UPLOAD_ARCHIVE_EXTENSIONS, UPLOAD_FILE_EXTENSIONS } from '../../shared/types/uploads'
 
 export interface SourceFiles {
   files: BundleFile[]
@@ -28,7 +27,8 @@ export class SourceProblem extends Error {
   override readonly name = 'SourceProblem'
 }
 
-const OTHER_ARCHIVES = ['.tar.bz2', '.tar.xz', '.tbz2', '.txz', '.gz', '.bz2', '.xz', '.7z', '.rar', '.zst']
+/** Archives recognised but not unpacked, so that the message can say which ones are. */
+const OTHER_ARCHIVES = KNOWN_ARCHIVE_EXTENSIONS.filter(ext => !UPLOAD_ARCHIVE_EXTENSIONS.includes(ext))
 
 /** Read `source` (a path as given on the command line). Throws SourceProblem on bad input. */
 export async function readSource(source: string): Promise<SourceFiles> {
@@ -42,7 +42,7 @@ export async function readSource(source: string): Promise<SourceFiles> {
     const lower = name.toLowerCase()
     const data = await readFile(source)
     if (archiveKindOf(name)) return { files: (await readUploadBundle([{ filename: name, data }])).files, skipped: [], origin: 'archive' }
-    if (OTHER_ARCHIVES.some(ext => lower.endsWith(ext))) throw new SourceProblem(`${source}: this kind of archive is not read; use .zip, .tar, .tar.gz or .tgz.`)
+    if (OTHER_ARCHIVES.some(ext => lower.endsWith(ext))) throw new SourceProblem(`${source}: this kind of archive is not read; use ${UPLOAD_ARCHIVE_EXTENSIONS.join(', ')}.`)
     if (!lower.endsWith('.tex')) throw new SourceProblem(`${source}: not a .tex file, a folder or a .zip / .tar / .tar.gz / .tgz archive.`)
     const { files } = await readUploadBundle([{ filename: name, data }])
     return { files, skipped: [], main: files[0]?.path, origin: 'file' }
@@ -96,5 +96,5 @@ async function readFolder(root: string): Promise<SourceFiles> {
 function isAcceptedFile(name: string): boolean {
   const lower = name.toLowerCase()
   const dot = lower.lastIndexOf('.')
-  return dot > 0 && UPLOAD_LIMITS.allowedExtensions.includes(lower.slice(dot))
+  return dot > 0 && UPLOAD_FILE_EXTENSIONS.includes(lower.slice(dot))
 }

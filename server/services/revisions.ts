@@ -1,12 +1,13 @@
 import type { Db } from '../database/connect'
-import type { ApiErrorCode } from '#shared/types/api'
+import type { UploadErrorCode } from '#shared/types/uploads'
 import { insertRevisionWithFiles, isStorageKeyReferenced, type StoredFile } from '../repositories/revisions'
 import { requestCheckRun } from './check-runs'
 import { touchManuscript } from '../repositories/manuscripts'
 import { appendAudit } from '../repositories/audit'
-import { readUploadedFiles, UPLOAD_LIMITS, UploadRefusedError, type BundleFile, type UploadRefusalCode } from '../utils/upload-bundle'
+import { readUploadedFiles, UPLOAD_LIMITS, UploadRefusedError, type BundleFile, type UploadedFile, type UploadRefusalCode } from '../uploads'
 
-export interface UploadedPart { filename: string, data: Buffer }
+/** A file held in memory (demo seed, tests); the web server passes files received to disk. */
+export type UploadedPart = Extract<UploadedFile, { data: Buffer }>
 
 /**
  * Stores a new revision: validate every file first, then put the bytes in S3
@@ -15,7 +16,7 @@ export interface UploadedPart { filename: string, data: Buffer }
  * leaves nothing half-stored: objects this call created and nobody else
  * references are removed again.
  */
-export async function createRevision(db: Db, input: { manuscriptId: string, userId: string, parts: UploadedPart[], note: string, conventions: Record<string, string> }) {
+export async function createRevision(db: Db, input: { manuscriptId: string, userId: string, parts: UploadedFile[], note: string, conventions: Record<string, string> }) {
   const files = await readOrRefuse(input.parts)
   const mainFile = guessMainFile(files)
   const createdKeys: string[] = []
@@ -57,14 +58,14 @@ export async function createRevision(db: Db, input: { manuscriptId: string, user
   return { id: result.revision.id, number: result.revision.number, checkRunId: result.checkRunId, files: stored.map(f => ({ path: f.path, sha256: f.sha256, sizeBytes: f.sizeBytes })) }
 }
 
-async function readOrRefuse(parts: UploadedPart[]): Promise<BundleFile[]> {
+async function readOrRefuse(parts: UploadedFile[]): Promise<BundleFile[]> {
   try {
     return await readUploadedFiles(parts)
   }
   catch (error) {
     if (error instanceof UploadRefusedError) {
       // The message is ours alone; the (escaped) entry name travels separately, never inside it.
-      fail(422, `upload-${error.code}` as ApiErrorCode, REFUSAL_MESSAGES[error.code], error.entry ? { entry: error.entry } : {})
+      fail(422, `upload-${error.code}` satisfies UploadErrorCode, REFUSAL_MESSAGES[error.code], error.entry ? { entry: error.entry } : {})
     }
     throw error
   }

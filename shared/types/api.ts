@@ -3,6 +3,8 @@
  * Every failure the API returns carries one of these codes in `data.code`,
  * so a client can switch on it instead of parsing a message.
  */
+import type { UploadErrorCode } from './uploads'
+
 export type ApiErrorCode =
   | 'invalid-input'
   | 'not-signed-in'
@@ -11,21 +13,8 @@ export type ApiErrorCode =
   | 'email-taken'
   | 'bad-credentials'
   | 'rate-limited'
-  | 'upload-too-large'
-  | 'upload-too-many-files'
-  | 'upload-file-type'
-  | 'upload-path-unsafe'
-  | 'upload-path-too-long'
-  | 'upload-special-entry'
-  | 'upload-archive-unsupported'
-  | 'upload-mixed-upload'
-  | 'upload-link-entry'
-  | 'upload-compression-ratio'
-  | 'upload-archive-corrupt'
-  | 'upload-nested-archive'
-  | 'upload-duplicate-path'
-  | 'upload-empty'
-  | 'upload-no-tex'
+  | UploadErrorCode // upload-<refusal code>, see shared/types/uploads.ts
+  | 'body-too-large'
   | 'storage-unavailable'
   | 'mail-inbox-unavailable'
   | 'conflict'

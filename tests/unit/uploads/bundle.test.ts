@@ -21,7 +21,7 @@ import {
   type UploadLimits,
   type UploadRefusalCode,
   type UploadedFile,
-} from '../../../server/utils/upload-bundle'
+} from '../../../server/uploads'
 
 const MiB = 1024 * 1024
 
@@ -47,7 +47,7 @@ async function refusalCode(work: Promise<unknown>): Promise<UploadRefusalCode> {
 type ArchiveFormat = 'zip' | 'tar' | 'tar.gz' | 'tgz'
 const FORMATS: ArchiveFormat[] = ['zip', 'tar', 'tar.gz', 'tgz']
 
-async function upload(format: ArchiveFormat, entries: ArchiveEntry[]): Promise<UploadedFile[]> {
+async function upload(format: ArchiveFormat, entries: ArchiveEntry[]): Promise<Extract<UploadedFile, { data: Buffer }>[]> {
   const data = format === 'zip' ? makeZip(entries) : format === 'tar' ? await makeTar(entries) : await makeTarGz(entries)
   return [{ filename: `bundle.${format}`, data }]
 }
@@ -529,5 +529,43 @@ describe('name helpers', () => {
     expect(shown.startsWith('aaaa')).toBe(true)
     expect(shown.endsWith('bbb.tex')).toBe(true)
     expect(shown).toContain('...')
+  })
+})
+
+describe('archives read from a temporary file (as the web server receives them)', () => {
+  const entries: ArchiveEntry[] = [
+    { path: 'paper/main.tex', content: MAIN_TEX },
+    { path: 'paper/sections/intro.tex', content: INTRO_TEX },
+  ]
+
+  it.each(FORMATS)('reads a .%s from disk exactly as from memory', async (format) => {
+    const [inMemory] = await upload(format, entries)
+    if (!inMemory) throw new Error('no upload built')
+    const folder = mkdtempSync(join(tmpdir(), 'scholium-bundle-test-'))
+    try {
+      const tempPath = join(folder, 'upload')
+      writeFileSync(tempPath, inMemory.data)
+      const fromDisk = await readUploadBundle([{ filename: inMemory.filename, tempPath, size: inMemory.data.length }])
+      const fromMemory = await readUploadBundle([inMemory])
+      expect(fromDisk.files.map(f => [f.path, f.sha256])).toEqual(fromMemory.files.map(f => [f.path, f.sha256]))
+      expect(fromDisk.files.map(f => f.path).sort()).toEqual(['main.tex', 'sections/intro.tex'])
+    }
+    finally {
+      rmSync(folder, { recursive: true, force: true })
+    }
+  })
+
+  it('refuses a gzip bomb read from disk by compression ratio', async () => {
+    const folder = mkdtempSync(join(tmpdir(), 'scholium-bundle-test-'))
+    try {
+      const data = await makeTarGz([{ path: 'main.tex', content: MAIN_TEX }, { path: 'zeros.txt', content: Buffer.alloc(15 * 1024 * 1024) }])
+      const tempPath = join(folder, 'upload')
+      writeFileSync(tempPath, data)
+      const error = await refusal(readUploadBundle([{ filename: 'bomb.tar.gz', tempPath, size: data.length }]))
+      expect(error.code).toBe('compression-ratio')
+    }
+    finally {
+      rmSync(folder, { recursive: true, force: true })
+    }
   })
 })
