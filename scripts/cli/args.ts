@@ -2,17 +2,21 @@
  * Command-line arguments of `scholium check`, parsed without a library so that every
  * refusal has its own clear message.
  *
- *   scholium check <source> [--json] [--convention <id>]… [--main <file>]
+ *   scholium check <source> [--format text|json|junit|annotations] [--json] [--convention <id>]… [--main <file>]
  *
  * A parse never throws: it gives either the options or a usage problem (exit code 2).
  */
 import { ALL_CONVENTION_IDS, axisOfConvention, type ConventionAxis, type ConventionId, type ConventionSet } from '../../shared/types/conventions'
 
+/** How the report is printed: for people, as JSON, as JUnit XML, or as CI annotations. */
+export const OUTPUT_FORMATS = ['text', 'json', 'junit', 'annotations'] as const
+export type OutputFormat = typeof OUTPUT_FORMATS[number]
+
 export interface CheckCommand {
   command: 'check'
   /** The .tex file, folder or archive, as given. */
   source: string
-  json: boolean
+  format: OutputFormat
   /** Conventions fixed from the command line, one per axis at most. */
   fixed: Partial<ConventionSet>
   /** The main file inside a folder or archive, relative to its root. */
@@ -30,7 +34,10 @@ export const USAGE = `Usage: scholium check <file.tex | folder | file.zip | file
 Checks the worked examples of a LaTeX manuscript and marks every line that carries a claim.
 
 Options:
-  --json                 print the report as JSON (schema scholium.report/1) instead of text
+  --format <name>        how to print the report: text (default), json (schema scholium.report/1),
+                         junit (JUnit XML, one test case per claim) or annotations (one
+                         ::error file=…,line=…:: line per failing claim, for CI)
+  --json                 the same as --format json
   --convention <ids>     fix conventions instead of inferring them; repeatable, or comma-separated
                          (--convention xy-plus --convention perm-inverse, --convention=xy-plus,perm-inverse)
   --main <file>          the main file inside a folder or archive (default: the one with \\documentclass)
@@ -54,7 +61,12 @@ export function parseArguments(argv: readonly string[]): ParsedArguments {
 
   const sources: string[] = []
   const conventionIds: string[] = []
-  let json = false
+  let format: OutputFormat | undefined
+  const chooseFormat = (wanted: OutputFormat): string | null => {
+    if (format !== undefined && format !== wanted) return `--format ${format} and --format ${wanted} ask for two outputs; give one.`
+    format = wanted
+    return null
+  }
   let main: string | undefined
   let onlyPositional = false
   for (let i = 1; i < argv.length; i++) {
@@ -77,8 +89,20 @@ export function parseArguments(argv: readonly string[]): ParsedArguments {
     switch (name) {
       case '--json':
         if (inlineValue !== undefined) return { command: 'problem', message: '--json takes no value.' }
-        json = true
+        {
+          const clash = chooseFormat('json')
+          if (clash) return { command: 'problem', message: clash }
+        }
         break
+      case '--format': {
+        const value = takeValue()
+        if (value === null || !(OUTPUT_FORMATS as readonly string[]).includes(value)) {
+          return { command: 'problem', message: `--format needs one of ${OUTPUT_FORMATS.join(', ')}.` }
+        }
+        const clash = chooseFormat(value as OutputFormat)
+        if (clash) return { command: 'problem', message: clash }
+        break
+      }
       case '--convention': {
         const value = takeValue()
         if (value === null || value.trim() === '') return { command: 'problem', message: `--convention needs an id; valid ids: ${ALL_CONVENTION_IDS.join(', ')}.` }
@@ -106,5 +130,5 @@ export function parseArguments(argv: readonly string[]): ParsedArguments {
     if (previous !== undefined && previous !== id) return { command: 'problem', message: `conventions "${previous}" and "${id}" choose differently on the same axis (${axis}); give one.` }
     fixed[axis] = id as ConventionId
   }
-  return { command: 'check', source: sources[0]!, json, fixed: fixed as Partial<ConventionSet>, ...(main !== undefined ? { main } : {}) }
+  return { command: 'check', source: sources[0]!, format: format ?? 'text', fixed: fixed as Partial<ConventionSet>, ...(main !== undefined ? { main } : {}) }
 }

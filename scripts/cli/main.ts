@@ -10,6 +10,7 @@ import { ENGINE_VERSION } from '../../shared/math'
 import type { Report } from '../../shared/types/report'
 import { parseArguments, USAGE, type CheckCommand } from './args'
 import { painter, renderReport } from './render'
+import { prefixer, renderAnnotations, renderJunit } from './ci-formats'
 import { readSource, SourceProblem, type SourceFiles } from './sources'
 
 export const EXIT = { ok: 0, failed: 1, badInput: 2, internal: 3 } as const
@@ -60,8 +61,19 @@ async function runCheck(command: CheckCommand, io: CliIo): Promise<number> {
   if (source.main !== undefined && report.warnings.some(w => w.code === 'missing-file')) {
     report.warnings.push({ code: 'single-file', message: `${command.source} was read alone; to include the files it inputs, check its folder instead.` })
   }
-  io.out(command.json ? `${JSON.stringify(report, null, 2)}\n` : renderReport(report, command.source, painter(io.colour)))
+  io.out(formatReport(report, command, source, io.colour))
   return report.summary.mismatch > 0 || report.summary.error > 0 ? EXIT.failed : EXIT.ok
+}
+
+function formatReport(report: Report, command: CheckCommand, source: SourceFiles, colour: boolean): string {
+  // A folder's files are named relative to it; CI wants them relative to where it ran.
+  const locate = prefixer(command.source, source)
+  switch (command.format) {
+    case 'json': return `${JSON.stringify(report, null, 2)}\n`
+    case 'junit': return renderJunit(report, locate)
+    case 'annotations': return renderAnnotations(report, locate)
+    case 'text': return renderReport(report, command.source, painter(colour))
+  }
 }
 
 /** Files left out of a folder are reported as warnings, so that the JSON says so too. */

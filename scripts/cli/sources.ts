@@ -19,6 +19,8 @@ export interface SourceFiles {
   skipped: { path: string, reason: string }[]
   /** The file to read first when the source is a single .tex file. */
   main?: string
+  /** What the user pointed at, so that outputs can name files in the user's own tree. */
+  origin: 'file' | 'folder' | 'archive'
 }
 
 /** Bad input: the message is for the user, the exit code is 2. */
@@ -39,11 +41,11 @@ export async function readSource(source: string): Promise<SourceFiles> {
     const name = basename(source)
     const lower = name.toLowerCase()
     const data = await readFile(source)
-    if (archiveKindOf(name)) return { files: (await readUploadBundle([{ filename: name, data }])).files, skipped: [] }
+    if (archiveKindOf(name)) return { files: (await readUploadBundle([{ filename: name, data }])).files, skipped: [], origin: 'archive' }
     if (OTHER_ARCHIVES.some(ext => lower.endsWith(ext))) throw new SourceProblem(`${source}: this kind of archive is not read; use .zip, .tar, .tar.gz or .tgz.`)
     if (!lower.endsWith('.tex')) throw new SourceProblem(`${source}: not a .tex file, a folder or a .zip / .tar / .tar.gz / .tgz archive.`)
     const { files } = await readUploadBundle([{ filename: name, data }])
-    return { files, skipped: [], main: files[0]?.path }
+    return { files, skipped: [], main: files[0]?.path, origin: 'file' }
   }
   catch (error) {
     if (error instanceof UploadRefusedError) throw new SourceProblem(`${source}: ${error.message} (${error.code})`)
@@ -88,7 +90,7 @@ async function readFolder(root: string): Promise<SourceFiles> {
   await walk(root, '')
   if (found.length === 0) throw new SourceProblem(`${root}: the folder has no manuscript files.`)
   const { files } = await readUploadBundle(found.map(f => ({ filename: f.path, data: f.data })))
-  return { files, skipped }
+  return { files, skipped, origin: 'folder' }
 }
 
 function isAcceptedFile(name: string): boolean {

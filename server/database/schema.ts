@@ -13,7 +13,17 @@ export interface UsersTable {
   display_name: string
   password_hash: string
   site_role: Generated<'member' | 'admin'>
+  session_version: Generated<number>
   created_at: Timestamp
+}
+
+export interface AttemptLimitsTable {
+  scope: string
+  key: string
+  attempts: number
+  last_attempt_at: Timestamp
+  blocked_until: Timestamp | null
+  last_refused: Generated<boolean>
 }
 
 export interface SignInFailuresTable {
@@ -185,6 +195,7 @@ export interface AuditLogTable {
 export interface Database {
   users: UsersTable
   sign_in_failures: SignInFailuresTable
+  attempt_limits: AttemptLimitsTable
   venues: VenuesTable
   venue_editors: VenueEditorsTable
   manuscripts: ManuscriptsTable

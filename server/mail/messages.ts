@@ -60,3 +60,20 @@ export function checkFinishedMail(input: { to: string, manuscriptTitle: string, 
     ].join('\n'),
   }
 }
+
+/** Sent instead of a second account when someone signs up with an address that already has one. */
+export function accountExistsMail(input: { to: string, signInLink: string, resetLink: string }): MailMessage {
+  return {
+    to: input.to,
+    subject: 'Your Scholium account already exists',
+    text: [
+      'Someone (perhaps you) tried to create a Scholium account with this e-mail address, which already has one.',
+      'No second account was made and your password is unchanged.',
+      '',
+      `Sign in here: ${input.signInLink}`,
+      `Forgot the password? Set a new one here: ${input.resetLink}`,
+      '',
+      'If it was not you, ignore this message.',
+    ].join('\n'),
+  }
+}

@@ -1,14 +1,15 @@
 import type { Db } from '../database/connect'
 import type { SessionUser, SiteRole, AdminUserRow } from '#shared/types/api'
 
-interface UserRecord extends SessionUser { passwordHash: string }
+interface UserRecord extends SessionUser { passwordHash: string, sessionVersion: number }
 
-const toUser = (row: { id: string, email: string, display_name: string, site_role: SiteRole, password_hash: string }): UserRecord => ({
+const toUser = (row: { id: string, email: string, display_name: string, site_role: SiteRole, password_hash: string, session_version: number }): UserRecord => ({
   id: row.id,
   email: row.email,
   displayName: row.display_name,
   siteRole: row.site_role,
   passwordHash: row.password_hash,
+  sessionVersion: row.session_version,
 })
 
 /** Finds a user by e-mail, case-insensitively. */
@@ -29,7 +30,7 @@ export async function insertUser(db: Db, user: { email: string, displayName: str
     .values({ email: user.email, display_name: user.displayName, password_hash: user.passwordHash, site_role: user.siteRole ?? 'member' })
     .returningAll()
     .executeTakeFirstOrThrow()
-  const { passwordHash: _omit, ...publicUser } = toUser(row)
+  const { passwordHash: _omit, sessionVersion: _version, ...publicUser } = toUser(row)
   return publicUser
 }
 
@@ -58,6 +59,20 @@ export async function clearSignInFailures(db: Db, emailKey: string): Promise<voi
   await db.deleteFrom('sign_in_failures').where('email_key', '=', emailKey).execute()
 }
 
+/** Sets a new password hash and bumps the session version, so every existing session ends. */
 export async function updatePasswordHash(db: Db, userId: string, passwordHash: string): Promise<void> {
-  await db.updateTable('users').set({ password_hash: passwordHash }).where('id', '=', userId).execute()
+  await db.updateTable('users').set(eb => ({ password_hash: passwordHash, session_version: eb('session_version', '+', 1) })).where('id', '=', userId).execute()
+}
+
+/** The user's current session version, or undefined when the account is gone. */
+export async function findSessionVersion(db: Db, userId: string): Promise<number | undefined> {
+  const row = await db.selectFrom('users').select('session_version').where('id', '=', userId).executeTakeFirst()
+  return row?.session_version
+}
+
+/** Bumps the session version: every session sealed with an older one is refused from now on. Returns the new version. */
+export async function bumpSessionVersion(db: Db, userId: string): Promise<number> {
+  const row = await db.updateTable('users').set(eb => ({ session_version: eb('session_version', '+', 1) })).where('id', '=', userId)
+    .returning('session_version').executeTakeFirstOrThrow()
+  return row.session_version
 }

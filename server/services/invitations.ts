@@ -72,6 +72,18 @@ export async function previewInvitation(db: Db, token: string): Promise<Invitati
   }
 }
 
+/** Whether `userId` is an active referee of a submission of the manuscript that is still open. */
+async function isOpenRefereeOfManuscript(db: Db, manuscriptId: string, userId: string): Promise<boolean> {
+  const row = await db.selectFrom('referee_assignments as a')
+    .innerJoin('submissions as s', 's.id', 'a.submission_id')
+    .innerJoin('revisions as r', 'r.id', 's.revision_id')
+    .select('a.id')
+    .where('r.manuscript_id', '=', manuscriptId).where('a.referee_id', '=', userId)
+    .where('a.status', '=', 'active').where('s.status', 'in', ['submitted', 'in-review'])
+    .executeTakeFirst()
+  return row !== undefined
+}
+
 /** Makes the signed-in user a coauthor; the link is used up in the same transaction. */
 export async function acceptInvitation(db: Db, token: string, user: SessionUser): Promise<{ manuscriptId: string }> {
   const invitation = await openInvitation(db, 'coauthor', token)
@@ -82,6 +94,8 @@ export async function acceptInvitation(db: Db, token: string, user: SessionUser)
   if (!manuscriptId) fail(404, 'not-found', 'No such invitation link')
   await db.transaction().execute(async (trx) => {
     // Two tabs accepting at once: only one marks the link used, the other is told it was used.
+    // A referee joining the authors would read their private threads and lose their anonymity.
+    if (await isOpenRefereeOfManuscript(trx, manuscriptId, user.id)) fail(409, 'referee-of-manuscript', 'You referee this manuscript; you cannot join it while the review is open')
     if (!(await markInvitationUsed(trx, invitation.id))) fail(410, 'invitation-used', 'This link has already been used; ask for a new one')
     await addManuscriptMember(trx, manuscriptId, user.id, 'coauthor')
     await touchManuscript(trx, manuscriptId)

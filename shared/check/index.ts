@@ -15,6 +15,7 @@ import { REPORT_SCHEMA, type Report, type ReportClaim } from '../types/report'
 import { evaluateClaim, type ClaimEvaluation } from './claim'
 import { decideClaim, inferConventions } from './decide'
 import type { EngineMemo } from './evaluate'
+import { reproduceScript } from './reproduce'
 
 export { evaluateClaim, type ClaimEvaluation } from './claim'
 export { inferConventions, decideClaim } from './decide'
@@ -47,7 +48,12 @@ export function evaluateClaims(read: ReadResult, options: CheckOptions & { memo?
 /** Infer conventions, decide verdicts and build the versioned report. */
 export function assembleReport(read: ReadResult, evaluations: readonly ClaimEvaluation[], options: { fixed?: Partial<ConventionSet>, durationMs: number, hashes?: Record<string, string> }): Report {
   const conventions = inferConventions(evaluations, options.fixed ?? {})
-  const claims: ReportClaim[] = read.claims.map((claim, i) => decideClaim(claim, evaluations[i]!, conventions))
+  const claims: ReportClaim[] = read.claims.map((claim, i) => {
+    const decided = decideClaim(claim, evaluations[i]!, conventions)
+    const checked = claim.question !== undefined && (decided.verdict === 'verified' || decided.verdict === 'mismatch')
+    const reproduce = checked ? reproduceScript(claim.source, claim.question!, decided.conventions) : null
+    return reproduce !== null ? { ...decided, reproduce } : decided
+  })
   const count = (predicate: (c: ReportClaim) => boolean) => claims.filter(predicate).length
   return {
     schema: REPORT_SCHEMA,

@@ -35,6 +35,9 @@ export type ApiErrorCode =
   | 'already-member'
   | 'owner-not-removable'
   | 'mail-unavailable'
+  | 'cross-site-request'
+  | 'manuscript-submitted'
+  | 'referee-of-manuscript'
 
 export interface ApiErrorData {
   code: ApiErrorCode

@@ -42,6 +42,21 @@ export const CONVENTION_AXES = {
   },
 } as const
 
+/**
+ * The same choices for typesetting: prose with `$…$` math, rendered with KaTeX in the app
+ * (the plain texts above stay for the command line, messages and e-mail).
+ */
+export const CONVENTION_CHOICE_TEX: Partial<Record<string, string>> = {
+  'xy-minus': 'factors $x_i - y_j$, so that $\\mathfrak{S}_{w_0} = \\prod_{i+j\\le n} (x_i - y_j)$',
+  'xy-plus': 'factors $x_i + y_j$ (that is, $y_j$ replaced by $-y_j$)',
+  'perm-w': 'the permutation $w$ is used as written',
+  'perm-inverse': 'the written permutation stands for $w^{-1}$',
+  'shape-rows': 'a partition $\\lambda$ lists row lengths (as written)',
+  'shape-columns': 'a partition lists column lengths: the transpose $\\lambda\'$, with $\\omega$ applied',
+  'beta-minus': '$\\beta = -1$',
+  'beta-plus': '$\\beta = +1$',
+}
+
 export type ConventionAxis = keyof typeof CONVENTION_AXES
 export type ConventionId = {
   [A in ConventionAxis]: keyof (typeof CONVENTION_AXES)[A]['choices']

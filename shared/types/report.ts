@@ -77,6 +77,11 @@ export interface ReportClaim {
   permutations: number[][]
   /** Set on claims a tag asked to skip (their verdict is `unsupported`). */
   skipped?: true
+  /**
+   * For a verified or mismatched claim of a kind SymPy can restate: a self-contained Python
+   * script that recomputes both sides from the definitions and prints "matches" or the difference.
+   */
+  reproduce?: string
 }
 
 export interface ConventionReport {

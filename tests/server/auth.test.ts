@@ -4,14 +4,14 @@ import { sql } from 'kysely'
 import { Client, db, newMember } from './helpers'
 
 describe('sign-up, sign-in and sign-out', () => {
-  it('stores a library hash, never the password, and refuses a second account for the same e-mail', async () => {
+  it('stores a library hash, never the password, and makes no second account for the same e-mail', async () => {
     const me = await newMember('hash')
     const row = await db.selectFrom('users').select('password_hash').where('id', '=', me.id).executeTakeFirstOrThrow()
     expect(row.password_hash).not.toContain('correct horse')
     expect(row.password_hash).toMatch(/^\$scrypt\$/)
-    const again = await new Client().post('/api/auth/sign-up', { email: me.email.toUpperCase(), displayName: 'Twin', password: 'another long password' })
-    expect(again.status).toBe(409)
-    expect(again.body.data.code).toBe('email-taken')
+    await new Client().post('/api/auth/sign-up', { email: me.email.toUpperCase(), displayName: 'Twin', password: 'another long password' })
+    const rows = await db.selectFrom('users').select('id').where(eb => eb(eb.fn('lower', ['email']), '=', me.email.toLowerCase())).execute()
+    expect(rows).toEqual([{ id: me.id }])
   })
   it('signs in with the right password, and signing out ends the session', async () => {
     const me = await newMember('cycle')

@@ -48,6 +48,18 @@ export class Client {
     return { status: response.status, body: parsed as T, text }
   }
 
+  /** The Cookie header this client sends, for requests made by hand. */
+  cookieHeader(): string {
+    return [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ')
+  }
+
+  /** A second browser holding a copy of this one's cookies (a stolen or copied session). */
+  copy(): Client {
+    const other = new Client()
+    for (const [k, v] of this.cookies) other.cookies.set(k, v)
+    return other
+  }
+
   get<T = any>(path: string) { return this.request<T>('GET', path) }
   post<T = any>(path: string, body?: unknown) { return this.request<T>('POST', path, body) }
   delete<T = any>(path: string) { return this.request<T>('DELETE', path) }
@@ -58,8 +70,10 @@ export async function newMember(label = 'member'): Promise<{ client: Client, id:
   const client = new Client()
   const email = `${label}-${randomUUID().slice(0, 8)}@tests.scholium.example`
   const displayName = `Test ${label} ${email.slice(label.length + 1, label.length + 5)}`
-  const response = await client.post('/api/auth/sign-up', { email, displayName, password: 'correct horse battery' })
-  if (response.status !== 201) throw new Error(`sign-up failed: ${response.status} ${response.text}`)
+  const signUp = await client.post('/api/auth/sign-up', { email, displayName, password: 'correct horse battery' })
+  if (signUp.status !== 202) throw new Error(`sign-up failed: ${signUp.status} ${signUp.text}`)
+  const response = await client.post('/api/auth/sign-in', { email, password: 'correct horse battery' })
+  if (response.status !== 200) throw new Error(`sign-in after sign-up failed: ${response.status} ${response.text}`)
   return { client, id: response.body.user.id, email, displayName }
 }
 

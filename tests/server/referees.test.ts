@@ -427,3 +427,23 @@ describe('the demo', () => {
     for (const identity of [DEMO_PEOPLE.referee.displayName, DEMO_PEOPLE.referee.email]) expect(res.text).not.toContain(identity)
   })
 })
+
+describe('issue 11: a referee stays outside the manuscript, and a submitted manuscript stays', () => {
+  it('a referee cannot accept a coauthor invitation to the manuscript they referee while the review is open (409)', async () => {
+    expect((await author.client.post(`/api/manuscripts/${paper.manuscriptId}/invitations`, { email: referee.email })).status).toBe(201)
+    const mail = await waitForMail(referee.email, /coauthor/i)
+    const token = /\/invitations\/([A-Za-z0-9_-]+)/.exec(mail.text)![1]
+    const res = await referee.client.post(`/api/invitations/${token}/accept`)
+    expect(res.status).toBe(409)
+    expect(res.body.data.code).toBe('referee-of-manuscript')
+    const member = await db.selectFrom('manuscript_members').select('user_id').where('manuscript_id', '=', paper.manuscriptId).where('user_id', '=', referee.id).execute()
+    expect(member).toEqual([])
+  })
+
+  it('deleting a submitted manuscript is 409 and leaves the venue its submission', async () => {
+    const res = await author.client.delete(`/api/manuscripts/${paper.manuscriptId}`)
+    expect(res.status).toBe(409)
+    expect(res.body.data.code).toBe('manuscript-submitted')
+    expect(await db.selectFrom('submissions').select('id').where('id', '=', submissionId).executeTakeFirst()).toEqual({ id: submissionId })
+  })
+})

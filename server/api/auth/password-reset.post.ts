@@ -9,7 +9,7 @@ const Body = z.object({ email: z.string().trim().email('Enter a valid e-mail add
  */
 export default defineEventHandler(async (event) => {
   const { email } = await readBodyAs(event, Body)
-  const work = requestPasswordReset(useDb(), email, publicBaseUrl())
+  const work = requestPasswordReset(useDb(), email, publicBaseUrl(), getRequestIP(event, { xForwardedFor: false }) ?? 'unknown')
     .catch(error => console.error('[password-reset] request failed', error))
   event.waitUntil(work)
   setResponseStatus(event, 202)

@@ -2,7 +2,7 @@ import { z } from 'zod'
 import { completePasswordReset } from '../../../services/password-reset'
 
 const Params = z.object({ token: z.string().max(200) })
-const Body = z.object({ password: z.string().min(10, 'Use at least 10 characters').max(200) })
+const Body = z.object({ password: newPasswordSchema })
 
 /** Sets a new password with a reset link's token. The link works once. */
 export default defineEventHandler(async (event) => {
