@@ -46,7 +46,7 @@ describe('the styles corpus', () => {
   }, 300_000)
 
   // The reader does not yet meet the whole corpus. What it still gets wrong is recorded, line by
-  // line, in known-gaps.json (written by hand from score.ts): no red mark is among them (every
+  // line, in known-gaps.json (rewritten by `score.ts --write-gaps`, and reviewed as a diff): no red mark is among them (every
   // recorded alarm is an "unsupported" or "error" line on prose math, or a verdict on an unkeyed
   // line). A new alarm or a new miss fails, and so does a recorded one that no longer happens, so
   // the record only shrinks as the reader grows.
