@@ -18,6 +18,7 @@ import type { ContextValue, Expr, Partition, PermutationSpec, CountedObject, Sym
 import { MATRIX_ENVS, plainText, type MathNode } from './math-tree'
 import type { NotationObject } from './tags'
 import { alphabetOfList, declaredAlphabet, type Alphabet } from './notation/alphabet'
+import { UNREAD_MACRO_PREFIX, unreadMacroReason } from './macros'
 
 export class ParseFail extends Error {}
 
@@ -328,6 +329,7 @@ export class SideParser {
       case 'det':
         return this.detOperator()
     }
+    if (n.v.startsWith(UNREAD_MACRO_PREFIX)) throw new ParseFail(unreadMacroReason(n.v.slice(UNREAD_MACRO_PREFIX.length)))
     if (UNSUPPORTED_OPERATORS.has(n.v)) throw new ParseFail(`unsupported notation \\${n.v}`)
     if (NAME_COMMANDS.has(n.v) && this.peek()?.k === 'group') {
       const name = plainText(childrenOf(this.peek()!)).trim()
@@ -601,6 +603,8 @@ export class SideParser {
     const { sub, sup } = this.readScripts()
     if (sup) throw new ParseFail('powers of \\partial are not supported')
     const index = sub ? readInteger(sub) : undefined
+    const letter = sub && index === undefined ? freeLetter(sub, this.ctx) : undefined
+    if (letter) throw new ParseFail(`${letter} is not bound (the index of \\partial_${letter}): a general identity`)
     if (index === undefined || index < 1) throw new ParseFail('\\partial needs a positive integer index, as in \\partial_1')
     if (!this.startsFactor(this.peek())) throw new ParseFail(`\\partial_${index} is applied to nothing`)
     const arg = this.parseProduct()
@@ -650,7 +654,9 @@ export class SideParser {
 
 const sizeOf = (parts: readonly number[]): number => parts.reduce((sum, part) => sum + part, 0)
 
-function describeNodes(nodes: MathNode[]): string {
+/** LaTeX-like text of nodes for messages, cut after 40 nodes with the count of what was cut. */
+function describeNodes(nodes: MathNode[], max = 40): string {
+  if (nodes.length > max) return `${nodes.slice(0, max).map(describe).join('')}… (${nodes.length - max} more)`
   return nodes.map(describe).join('') || '(empty)'
 }
 
@@ -807,8 +813,9 @@ export function readPermutation(nodes: MathNode[], ctx: ParseContext, used: Map<
       used.set(sym.name, sym.value)
       return sym.value.perm
     }
-    if (sym.value) throw new ParseFail(`${sym.name} is bound to a ${sym.value.kind}, not a permutation`)
-    throw new ParseFail(`permutation ${sym.name} is not bound (write "Let $${sym.name} = 2143$" before the claim)`)
+    if (sym.value) throw new ParseFail(`${sym.name} is bound to ${article(sym.value.kind)} ${sym.value.kind}, not a permutation`)
+    if (PERMUTATION_SYMBOLS.has(sym.name.replace(/'$/, ''))) throw new ParseFail(`permutation ${sym.name} is not bound (write "Let $${sym.name} = 2143$" before the claim)`)
+    throw new ParseFail(`${sym.name} is not bound (a permutation is expected here)`)
   }
   // w_0, w_0^{(n)}
   if (isCh(ns[0], 'w') && ns.length >= 3) {
@@ -817,7 +824,7 @@ export function readPermutation(nodes: MathNode[], ctx: ParseContext, used: Map<
     for (let j = 1; j + 1 < ns.length; j += 2) {
       if (isCh(ns[j], '_')) sub = childrenOf(ns[j + 1]!)
       else if (isCh(ns[j], '^')) sup = childrenOf(ns[j + 1]!)
-      else throw new ParseFail(`cannot read ${describeNodes(ns)} as a permutation`)
+      else throw unreadablePermutation(ns, ctx)
     }
     if (readInteger(sub ?? []) === 0 && ns.length % 2 === 1) {
       let n: number | undefined
@@ -828,14 +835,14 @@ export function readPermutation(nodes: MathNode[], ctx: ParseContext, used: Map<
         if (n === undefined) throw new ParseFail(`cannot read n in w_0^{${describeNodes(sup)}}`)
       } else {
         const bound = ctx.bindings.get('n')
-        if (bound?.kind !== 'integer') throw new ParseFail('w_0 needs n: write w_0^{(n)} or bind n ("Let $n = 4$")')
+        if (bound?.kind !== 'integer') throw new ParseFail('n is not bound: w_0 needs n (write w_0^{(n)} or "Let $n = 4$")')
         used.set('n', bound)
         n = bound.value
       }
       if (n < 1) throw new ParseFail('w_0 needs n ≥ 1')
       return { form: 'longest', n }
     }
-    throw new ParseFail(`cannot read ${describeNodes(ns)} as a permutation`)
+    throw unreadablePermutation(ns, ctx)
   }
   // s_1 s_2 s_1
   if (isCh(ns[0], 's') && isCh(ns[1], '_')) {
@@ -843,6 +850,8 @@ export function readPermutation(nodes: MathNode[], ctx: ParseContext, used: Map<
     for (let j = 0; j < ns.length; j += 3) {
       if (!isCh(ns[j], 's') || !isCh(ns[j + 1], '_') || !ns[j + 2]) throw new ParseFail(`cannot read ${describeNodes(ns)} as a word in simple transpositions`)
       const k = readInteger(childrenOf(ns[j + 2]!))
+      const letter = k === undefined ? freeLetter(childrenOf(ns[j + 2]!), ctx) : undefined
+      if (letter) throw new ParseFail(`${letter} is not bound (the index of s_${letter}): a general statement`)
       if (k === undefined || k < 1) throw new ParseFail(`s_{${describeNodes(childrenOf(ns[j + 2]!))}} is not a simple transposition`)
       letters.push(k)
     }
@@ -854,7 +863,7 @@ export function readPermutation(nodes: MathNode[], ctx: ParseContext, used: Map<
     const cycles: number[][] = []
     let j = 0
     while (j < ns.length) {
-      if (!isCh(ns[j], '(')) throw new ParseFail(`cannot read ${describeNodes(ns)} as a permutation`)
+      if (!isCh(ns[j], '(')) throw unreadablePermutation(ns, ctx)
       let k = j + 1
       while (k < ns.length && !isCh(ns[k], ')')) k++
       if (k >= ns.length) throw new ParseFail('unbalanced "(" in a permutation')
@@ -877,8 +886,49 @@ export function readPermutation(nodes: MathNode[], ctx: ParseContext, used: Map<
     return { form: 'cycles', cycles }
   }
   if (splitCommas(ns).length > 1) return checkOneLine(readEntries(ns))
-  throw new ParseFail(`cannot read ${describeNodes(ns)} as a permutation`)
+  throw unreadablePermutation(ns, ctx)
 }
+
+/**
+ * Why a subscript is no permutation: a macro the reader did not follow, a letter the text never
+ * bound (`ws_i`, `wt_{ab}`: a general statement), or else plain unreadable notation.
+ */
+function unreadablePermutation(ns: MathNode[], ctx: ParseContext): ParseFail {
+  const unread = findUnreadMacro(ns)
+  if (unread) return new ParseFail(unreadMacroReason(unread))
+  const letter = freeLetter(ns, ctx)
+  if (letter) return new ParseFail(`${letter} is not bound (in the permutation ${describeNodes(ns)}): a general statement`)
+  return new ParseFail(`cannot read ${describeNodes(ns)} as a permutation`)
+}
+
+function findUnreadMacro(nodes: MathNode[]): string | undefined {
+  for (const n of nodes) {
+    if (n.k === 'cs' && n.v.startsWith(UNREAD_MACRO_PREFIX)) return n.v.slice(UNREAD_MACRO_PREFIX.length)
+    if (n.k === 'group' || n.k === 'env') {
+      const inner = findUnreadMacro(n.children)
+      if (inner) return inner
+    }
+  }
+  return undefined
+}
+
+/** The first letter (Latin or Greek) in the nodes that the text has not bound, if any: `i` in `s_i`. */
+function freeLetter(nodes: MathNode[], ctx: ParseContext): string | undefined {
+  for (const n of nodes) {
+    if (n.k === 'group' || n.k === 'env') {
+      const inner = freeLetter(n.children, ctx)
+      if (inner) return inner
+      continue
+    }
+    const name = n.k === 'ch' && /^[A-Za-z]$/.test(n.v) ? n.v : n.k === 'cs' && GREEK_LETTERS.test(n.v) ? '\\' + n.v : undefined
+    if (name && !ctx.bindings.has(name)) return name
+  }
+  return undefined
+}
+
+const GREEK_LETTERS = /^(alpha|beta|gamma|delta|epsilon|zeta|eta|theta|iota|kappa|lambda|mu|nu|xi|pi|rho|sigma|tau|upsilon|phi|chi|psi|omega)$/
+
+const article = (word: string) => (/^[aeiou]/.test(word) ? 'an' : 'a')
 
 function readEntries(nodes: MathNode[]): number[] {
   const items = splitCommas(nodes)
@@ -895,13 +945,19 @@ function readEntries(nodes: MathNode[]): number[] {
   })
 }
 
+/** A list of numbers for a message, cut after 16 with the count of what was cut: `1,2,…(+14 more)`. */
+function listForMessage(values: number[], sep: string, max = 16): string {
+  if (values.length <= max) return values.join(sep)
+  return `${values.slice(0, max).join(sep)}… (${values.length - max} more)`
+}
+
 function isPermutationOfOneToN(entries: number[]): boolean {
   const seen = new Set(entries)
   return seen.size === entries.length && entries.every(v => v >= 1 && v <= entries.length)
 }
 
 function checkOneLine(entries: number[]): PermutationSpec {
-  if (!isPermutationOfOneToN(entries)) throw new ParseFail(`${entries.join(entries.some(v => v > 9) ? ',' : '')} is not a permutation of 1..${entries.length}`)
+  if (!isPermutationOfOneToN(entries)) throw new ParseFail(`${listForMessage(entries, entries.some(v => v > 9) ? ',' : '')} is not a permutation of 1..${entries.length}`)
   return { form: 'oneLine', entries }
 }
 
@@ -917,8 +973,9 @@ export function readPartition(nodes: MathNode[], ctx: ParseContext, used: Map<st
       return sym.value.parts
     }
     if (ns.length === 1 && (isCs(ns[0], 'emptyset') || isCs(ns[0], 'varnothing'))) return []
-    if (sym.value) throw new ParseFail(`${sym.name} is bound to a ${sym.value.kind}, not a partition`)
-    throw new ParseFail(`partition ${sym.name} is not bound (write "Let $${sym.name} = (2,1)$" before the claim)`)
+    if (sym.value) throw new ParseFail(`${sym.name} is bound to ${article(sym.value.kind)} ${sym.value.kind}, not a partition`)
+    if (PARTITION_SYMBOLS.has(sym.name.replace(/'$/, ''))) throw new ParseFail(`partition ${sym.name} is not bound (write "Let $${sym.name} = (2,1)$" before the claim)`)
+    throw new ParseFail(`${sym.name} is not bound (a partition is expected here)`)
   }
   if (isCh(ns[0], '(') && isCh(ns[ns.length - 1], ')')) ns = ns.slice(1, -1)
   let parts: number[]
@@ -945,7 +1002,7 @@ export function readPartition(nodes: MathNode[], ctx: ParseContext, used: Map<st
   }
   while (parts.length && parts[parts.length - 1] === 0) parts.pop()
   for (let j = 0; j < parts.length; j++) {
-    if (parts[j]! < 1 || (j > 0 && parts[j]! > parts[j - 1]!)) throw new ParseFail(`(${parts.join(',')}) is not a partition (parts must be positive and weakly decreasing)`)
+    if (parts[j]! < 1 || (j > 0 && parts[j]! > parts[j - 1]!)) throw new ParseFail(`(${listForMessage(parts, ',')}) is not a partition (parts must be positive and weakly decreasing)`)
   }
   return parts
 }

@@ -69,5 +69,5 @@ export function chooseMainFile(files: Record<string, string | Uint8Array>): stri
     const norm = normalizeBundlePath(path)
     if (norm !== undefined) normalized[norm] = content
   }
-  return new ReaderRun(normalized, { ...DEFAULT_LIMITS }).chooseRoots(undefined)[0]
+  return new ReaderRun(normalized, { ...DEFAULT_LIMITS }).sources.chooseRoots(undefined)[0]
 }

@@ -5,25 +5,84 @@
  * the position of the macro's use (never of its definition) and a depth one higher than the macro
  * token; passing `limits.maxExpansionDepth` or the output budget raises `ExpansionError`, so a
  * self-referential macro ends with a clear message instead of a hang.
+ * - `\let\a\b` copies the meaning \b has now: a user macro's definition, or else the command
+ *   itself as TeX knows it (a "primitive" copy that is never expanded again), so
+ *   `\let\oldsum\sum \renewcommand{\sum}{\oldsum\limits}` is not recursive.
+ * - A macro whose argument specification the reader does not follow (xparse specs other than
+ *   m, o and O{…}) is kept as "unread": its uses become the token `\unread@name`, which no notation
+ *   reader knows, so the math around it is listed as not read instead of being guessed.
+ * - User environments (\newenvironment) expand at \begin and \end; `onUserEnvironment` tells a
+ *   listener where they start and end, since their own \begin/\end tokens are consumed.
  */
 import { Tokenizer, splitRuns, type Token } from './tokens'
 
 /** One item of a \def parameter text: a parameter number or a literal delimiter token. */
 type PatternItem = { param: number } | { literal: Token }
 
+/** One undelimited argument: mandatory, or optional in brackets with a default (none: xparse's -NoValue-). */
+export type ArgumentSpec = { kind: 'mandatory' } | { kind: 'optional'; default?: Token[] }
+
 export interface MacroDefinition {
   name: string
   /** Number of parameters (#1 … #9). */
   params: number
-  /** For \newcommand with an optional first argument: its default value. */
-  optionalDefault?: Token[]
+  /** Undelimited arguments in order (\newcommand, \NewDocumentCommand); absent means `params` mandatory ones. */
+  args?: ArgumentSpec[]
   /** For \def with delimiters; undefined when every parameter is undelimited. */
   pattern?: PatternItem[]
   /** Replacement text; `param` tokens stand for arguments. */
   body: Token[]
+  /** A \let copy of something that is not a user macro: its one body token, never expanded again. */
+  primitive?: boolean
+  /** Why the reader does not expand this macro (an argument specification it does not follow). */
+  unread?: string
   /** Where it was defined, for messages. */
   file: string
   offset: number
+}
+
+/** An environment from \newenvironment or \NewDocumentEnvironment. */
+export interface EnvironmentDefinition {
+  name: string
+  /** The begin code, with the environment's arguments. */
+  begin: MacroDefinition
+  end: Token[]
+  file: string
+  offset: number
+}
+
+/** What one defining command declared. */
+export type Definition =
+  | { type: 'macro'; macro: MacroDefinition }
+  | { type: 'environment'; environment: EnvironmentDefinition }
+  | { type: 'theorem'; name: string }
+
+/** The FILES-and-macros stage's output that later stages read: macros, environments, theorem-like blocks. */
+export class MacroTable {
+  readonly macros = new Map<string, MacroDefinition>()
+  readonly environments = new Map<string, EnvironmentDefinition>()
+  /** Environments declared with \newtheorem (or \declaretheorem): example, remark, proof-like blocks. */
+  readonly theoremEnvironments = new Set<string>()
+
+  add(d: Definition): void {
+    if (d.type === 'macro') this.macros.set(d.macro.name, d.macro)
+    else if (d.type === 'environment') this.environments.set(d.environment.name, d.environment)
+    else this.theoremEnvironments.add(d.name)
+  }
+}
+
+/** Prefix of the token that stands for a use of an unread macro. */
+export const UNREAD_MACRO_PREFIX = 'unread@'
+
+/** Why math using an unread macro is not read: `unreadMacroReason('Sw')`. */
+export function unreadMacroReason(name: string): string {
+  if (name === NO_VALUE_NAME) return 'a left-out optional argument (-NoValue-) is used here; the reader does not follow it'
+  return `\\${name} takes arguments the reader does not follow`
+}
+
+/** True for the reason `unreadMacroReason` gives. */
+export function isUnreadMacroReason(reason: string): boolean {
+  return /the reader does not follow( it)?$/.test(reason)
 }
 
 export class ExpansionError extends Error {
@@ -45,6 +104,10 @@ export interface ExpansionBudget {
 
 const SPACE_KINDS = new Set(['sp', 'par'])
 
+/** What xparse hands a macro for an absent `o` argument (-NoValue-): an unread token, so such math is not read. */
+const NO_VALUE_NAME = 'NoValue-'
+const NO_VALUE: Token[] = [{ k: 'cs', v: 'unread@' + NO_VALUE_NAME, pos: 0, end: 0, depth: 0 }]
+
 /**
  * A token stream with TeX-like expansion of user macros.
  * `next()` expands; `nextRaw()` does not. Names in `protectedNames` (notation declared by tags)
@@ -52,14 +115,20 @@ const SPACE_KINDS = new Set(['sp', 'par'])
  */
 export class Expander {
   private frames: { toks: Token[]; i: number }[] = []
+  /** Told where a user environment begins and ends (its \begin and \end tokens are consumed). */
+  onUserEnvironment: ((name: string, edge: 'begin' | 'end', pos: number) => void) | undefined
 
   constructor(
     readonly tokenizer: Tokenizer,
-    readonly macros: Map<string, MacroDefinition>,
+    readonly table: MacroTable,
     readonly protectedNames: Set<string>,
     readonly limits: ExpansionLimits,
     readonly budget: ExpansionBudget,
   ) {}
+
+  get macros(): Map<string, MacroDefinition> {
+    return this.table.macros
+  }
 
   /** True when no expanded tokens are pending, so the tokenizer position can be saved and restored. */
   get atFileLevel(): boolean {
@@ -114,10 +183,55 @@ export class Expander {
     for (;;) {
       const t = this.nextRaw()
       if (!t || t.k !== 'cs') return t
-      const def = this.macros.get(t.v)
+      if ((t.v === 'begin' || t.v === 'end') && this.table.environments.size) {
+        if (this.expandEnvironment(t)) continue
+        return t
+      }
+      const def = this.table.macros.get(t.v)
       if (!def || this.protectedNames.has(t.v)) return t
+      if (def.primitive) {
+        // The meaning \let copied: handed out as it is, never looked up again.
+        const meaning = def.body[0]!
+        return { k: meaning.k, v: meaning.v, pos: t.pos, end: t.end, depth: t.depth + 1 }
+      }
+      if (def.unread) return { k: 'cs', v: UNREAD_MACRO_PREFIX + t.v, pos: t.pos, end: t.end, depth: t.depth }
       this.expand(t, def)
     }
+  }
+
+  /** `\begin{name}` or `\end{name}` of a user environment: replace it by its code. False if it is not one. */
+  private expandEnvironment(t: Token): boolean {
+    const nameToks: Token[] = []
+    let open = this.nextRaw()
+    while (open && SPACE_KINDS.has(open.k)) {
+      nameToks.push(open)
+      open = this.nextRaw()
+    }
+    let env: EnvironmentDefinition | undefined
+    if (open) nameToks.push(open)
+    if (open && open.k === 'ch' && open.v === '{') {
+      let name = ''
+      for (let i = 0; i < 40; i++) {
+        const u = this.nextRaw()
+        if (!u) break
+        nameToks.push(u)
+        if (u.k === 'ch' && u.v === '}') {
+          env = this.table.environments.get(name.trim())
+          break
+        }
+        if (u.k === 'ch' && u.v === '{') break
+        name += u.k === 'cs' ? '\\' + u.v : u.v
+      }
+    }
+    if (!env) {
+      this.pushBack(nameToks)
+      return false
+    }
+    this.onUserEnvironment?.(env.name, t.v === 'begin' ? 'begin' : 'end', t.pos)
+    const owner: Token = { ...t, v: t.v === 'begin' ? `begin{${env.name}}` : `end{${env.name}}` }
+    if (t.v === 'begin') this.expand(owner, env.begin)
+    else this.expand(owner, { ...env.begin, params: 0, args: undefined, pattern: undefined, body: env.end })
+    return true
   }
 
   private expand(t: Token, def: MacroDefinition): void {
@@ -136,18 +250,23 @@ export class Expander {
       this.matchPattern(t, def, args)
       for (const a of args) noteEnd(a)
     } else {
-      let first = 0
-      if (def.optionalDefault) {
+      const specs: ArgumentSpec[] = def.args ?? Array.from({ length: def.params }, () => ({ kind: 'mandatory' }) as const)
+      for (const spec of specs) {
+        if (spec.kind === 'mandatory') {
+          const a = this.readArgument(t)
+          noteEnd(a)
+          args.push(a)
+          continue
+        }
         const opt = this.readOptional(t)
-        // The default comes from the definition: stamp it with the use site's position.
-        args.push(opt ?? def.optionalDefault.map(d => ({ ...d, pos: t.pos, end: t.end, depth: t.depth + 1 })))
-        if (opt) noteEnd(opt)
-        first = 1
-      }
-      for (let i = first; i < def.params; i++) {
-        const a = this.readArgument(t)
-        noteEnd(a)
-        args.push(a)
+        if (opt) {
+          noteEnd(opt)
+          args.push(opt)
+        } else {
+          // The default comes from the definition: stamp it with the use site's position.
+          const fallback = spec.default ?? NO_VALUE
+          args.push(fallback.map(d => ({ ...d, pos: t.pos, end: t.end, depth: t.depth + 1 })))
+        }
       }
     }
     const last = this.lastRaw
@@ -331,27 +450,35 @@ export function toReplacementText(toks: Token[]): Token[] {
   return out
 }
 
-/** Commands that define macros and are handled by `readDefinition`. */
+/** Commands that define macros, environments or theorem-like blocks; handled by `readDefinition`. */
 export const DEFINING_COMMANDS = new Set([
   'newcommand', 'renewcommand', 'providecommand', 'def', 'gdef', 'edef', 'xdef', 'let',
   'DeclareMathOperator', 'DeclareRobustCommand',
+  'NewDocumentCommand', 'RenewDocumentCommand', 'ProvideDocumentCommand', 'DeclareDocumentCommand',
+  'newenvironment', 'renewenvironment', 'NewDocumentEnvironment', 'RenewDocumentEnvironment', 'DeclareDocumentEnvironment',
+  'newtheorem', 'declaretheorem', 'spnewtheorem',
 ])
 
 /**
- * Read a definition whose command token `cmd` was just consumed. Returns the definition (or undefined
- * for \providecommand of a known name), or throws ExpansionError for malformed input.
+ * Read a definition whose command token `cmd` was just consumed. Returns what it declared (or
+ * undefined for \providecommand of a known name), or throws ExpansionError for malformed input.
+ * Example: after `\DeclareMathOperator{\sch}{\mathfrak{S}}`, \sch expands to `\mathfrak{S}`.
  */
 export function readDefinition(
   cmd: Token,
   x: Expander,
   file: string,
-): MacroDefinition | undefined {
+): Definition | undefined {
   const name = cmd.v
-  const star = () => {
+  const macro = (m: MacroDefinition): Definition => ({ type: 'macro', macro: m })
+  const star = (): boolean => {
     const p = x.nextRawNonSpace()
     if (p && p.k === 'ch' && p.v.startsWith('*')) {
       if (p.v.length > 1) x.pushBack([{ ...p, v: p.v.slice(1) }])
-    } else if (p) x.pushBack([p])
+      return true
+    }
+    if (p) x.pushBack([p])
+    return false
   }
   const readName = (): Token => {
     const t = x.nextRawNonSpace()
@@ -368,26 +495,52 @@ export function readDefinition(
     if (t.k === 'ch' && t.v === '{') return x.readGroupBody(t, cmd)
     return [t]
   }
+  /** A braced name of letters (an environment or counter): `{example}`. */
+  const readWord = (): string => {
+    const t = x.nextRawNonSpace()
+    if (t && t.k === 'ch' && t.v === '{') {
+      const word = x.readGroupBody(t, cmd).map(u => (u.k === 'cs' ? '\\' + u.v : u.v)).join('').trim()
+      if (/^[A-Za-z@*0-9-]+$/.test(word)) return word
+      throw new ExpansionError(`\\${name}{${word}}: "${word}" is not an environment name`, cmd.pos)
+    }
+    throw new ExpansionError(`\\${name} must be followed by a name in braces`, cmd.pos)
+  }
+  /** `[n][default]` after \newcommand{\name} or \newenvironment{name}. */
+  const readNewcommandArgs = (what: string): { params: number; args?: ArgumentSpec[] } => {
+    const count = x.readOptional(cmd)
+    if (!count) return { params: 0 }
+    const digits = count.map(u => u.v).join('').trim()
+    if (!/^[0-9]$/.test(digits)) throw new ExpansionError(`\\${name}{${what}}: "[${digits}]" is not a number of arguments`, cmd.pos)
+    const params = Number(digits)
+    const opt = x.readOptional(cmd)
+    if (!opt || params === 0) return { params }
+    const args: ArgumentSpec[] = [{ kind: 'optional', default: opt }]
+    for (let i = 1; i < params; i++) args.push({ kind: 'mandatory' })
+    return { params, args }
+  }
+
   if (name === 'let') {
     const target = readName()
     let t = x.nextRawNonSpace()
-    if (t && t.k === 'ch' && t.v === '=') t = x.nextRawNonSpace()
+    if (t && t.k === 'ch' && t.v.startsWith('=')) {
+      if (t.v.length > 1) t = { ...t, v: t.v.slice(1), pos: t.pos + 1 }
+      else t = x.nextRawNonSpace()
+    }
     if (!t) throw new ExpansionError('\\let has no second token', cmd.pos)
+    if (t.k === 'ch' && t.v.length > 1) {
+      // `\let\eq=ab`: only the first character is the meaning; the rest is ordinary text.
+      x.pushBack([{ ...t, v: t.v.slice(1), pos: t.pos + 1 }])
+      t = { ...t, v: t.v[0]!, end: t.pos + 1 }
+    }
     const existing = t.k === 'cs' ? x.macros.get(t.v) : undefined
-    if (existing) return { ...existing, name: target.v, file, offset: cmd.pos }
-    return { name: target.v, params: 0, body: [t], file, offset: cmd.pos }
+    if (existing) return macro({ ...existing, name: target.v, file, offset: cmd.pos })
+    return macro({ name: target.v, params: 0, body: [t], primitive: true, file, offset: cmd.pos })
   }
   if (name === 'DeclareMathOperator') {
     star()
     const target = readName()
     const text = readBody()
-    const body: Token[] = [
-      { k: 'cs', v: 'operatorname', pos: cmd.pos, end: cmd.end, depth: 0 },
-      { k: 'ch', v: '{', pos: cmd.pos, end: cmd.end, depth: 0 },
-      ...text,
-      { k: 'ch', v: '}', pos: cmd.pos, end: cmd.end, depth: 0 },
-    ]
-    return { name: target.v, params: 0, body, file, offset: cmd.pos }
+    return macro({ name: target.v, params: 0, body: operatorBody(text, cmd), file, offset: cmd.pos })
   }
   if (name === 'def' || name === 'gdef' || name === 'edef' || name === 'xdef') {
     const target = readName()
@@ -401,33 +554,141 @@ export function readDefinition(
         const items: PatternItem[] = pattern.map(u => (u.k === 'param' ? { param: Number(u.v) } : { literal: u }))
         const params = items.filter(it => 'param' in it).length
         const delimited = items.some(it => 'literal' in it && it.literal.k !== 'sp')
-        return {
+        return macro({
           name: target.v,
           params,
           pattern: delimited ? items.filter(it => 'param' in it || it.literal.k !== 'sp') : undefined,
           body,
           file,
           offset: cmd.pos,
-        }
+        })
       }
       paramText.push(t)
       if (paramText.length > 100) throw new ExpansionError(`\\${name}\\${target.v}: parameter text too long`, cmd.pos)
     }
   }
-  // \newcommand, \renewcommand, \providecommand, \DeclareRobustCommand
+  if (name === 'NewDocumentCommand' || name === 'RenewDocumentCommand' || name === 'ProvideDocumentCommand' || name === 'DeclareDocumentCommand') {
+    const target = readName()
+    const spec = readBody()
+    const body = toReplacementText(readBody())
+    if (name === 'ProvideDocumentCommand' && x.macros.has(target.v)) return undefined
+    const parsed = parseArgumentSpec(spec)
+    if ('unread' in parsed) return macro({ name: target.v, params: 0, body: [], unread: parsed.unread, file, offset: cmd.pos })
+    return macro({ name: target.v, params: parsed.args.length, args: parsed.args, body, file, offset: cmd.pos })
+  }
+  if (name === 'newenvironment' || name === 'renewenvironment') {
+    star()
+    const envName = readWord()
+    const { params, args } = readNewcommandArgs(envName)
+    const begin = toReplacementText(readBody())
+    const end = toReplacementText(readBody())
+    const beginDef: MacroDefinition = { name: envName, params, args, body: begin, file, offset: cmd.pos }
+    return { type: 'environment', environment: { name: envName, begin: beginDef, end, file, offset: cmd.pos } }
+  }
+  if (name === 'NewDocumentEnvironment' || name === 'RenewDocumentEnvironment' || name === 'DeclareDocumentEnvironment') {
+    const envName = readWord()
+    const spec = readBody()
+    const begin = toReplacementText(readBody())
+    const end = toReplacementText(readBody())
+    const parsed = parseArgumentSpec(spec)
+    // An environment whose arguments are not followed still ends where it ends: its code is dropped.
+    const beginDef: MacroDefinition = 'unread' in parsed
+      ? { name: envName, params: 0, body: [], file, offset: cmd.pos }
+      : { name: envName, params: parsed.args.length, args: parsed.args, body: begin, file, offset: cmd.pos }
+    return { type: 'environment', environment: { name: envName, begin: beginDef, end: 'unread' in parsed ? [] : end, file, offset: cmd.pos } }
+  }
+  if (name === 'newtheorem' || name === 'spnewtheorem') {
+    // \newtheorem{name}[counter]{Title}[within], \newtheorem*{name}{Title}
+    star()
+    const envName = readWord()
+    x.readOptional(cmd)
+    readBody()
+    x.readOptional(cmd)
+    return { type: 'theorem', name: envName }
+  }
+  if (name === 'declaretheorem') {
+    // thmtools: \declaretheorem[options]{name} (the options may come after the name too)
+    x.readOptional(cmd)
+    const envName = readWord()
+    x.readOptional(cmd)
+    return { type: 'theorem', name: envName }
+  }
+  // \newcommand, \renewcommand, \providecommand, \DeclareRobustCommand (each also with *)
   star()
   const target = readName()
-  let params = 0
-  let optionalDefault: Token[] | undefined
-  const count = x.readOptional(cmd)
-  if (count) {
-    const digits = count.map(u => u.v).join('').trim()
-    if (!/^[0-9]$/.test(digits)) throw new ExpansionError(`\\${name}{\\${target.v}}: "[${digits}]" is not a number of arguments`, cmd.pos)
-    params = Number(digits)
-    const opt = x.readOptional(cmd)
-    if (opt) optionalDefault = opt
-  }
+  const { params, args } = readNewcommandArgs('\\' + target.v)
   const body = toReplacementText(readBody())
   if (name === 'providecommand' && x.macros.has(target.v)) return undefined
-  return { name: target.v, params, optionalDefault, body, file, offset: cmd.pos }
+  return macro({ name: target.v, params, args, body, file, offset: cmd.pos })
+}
+
+/**
+ * What \DeclareMathOperator{\name}{text} stands for. An operator name is upright text: `Des`,
+ * `Red`, `Gr` become \operatorname{…}, plain names and never an object. When the text is a single
+ * symbol (`\mathfrak{S}`, `\ell`, `\mathcal{A}`), LaTeX prints that symbol as an operator, so the
+ * macro means the symbol itself: \sch_w is a Schubert polynomial as \mathfrak{S}_w is.
+ */
+function operatorBody(text: Token[], cmd: Token): Token[] {
+  const toks = text.filter(t => t.k !== 'sp')
+  if (isSingleSymbol(toks)) return toks
+  return [
+    { k: 'cs', v: 'operatorname', pos: cmd.pos, end: cmd.end, depth: 0 },
+    { k: 'ch', v: '{', pos: cmd.pos, end: cmd.end, depth: 0 },
+    ...text,
+    { k: 'ch', v: '}', pos: cmd.pos, end: cmd.end, depth: 0 },
+  ]
+}
+
+/** One control word followed only by braced arguments or one letter: `\ell`, `\mathfrak{S}`, `\mathfrak S`. */
+function isSingleSymbol(toks: Token[]): boolean {
+  const head = toks[0]
+  if (!head || head.k !== 'cs' || !/^[A-Za-z]+$/.test(head.v)) return false
+  // `\mathfrak S`: one character as the argument, unbraced.
+  if (toks.length === 2) return toks[1]!.k === 'ch' && toks[1]!.v.length === 1 && /^[A-Za-z]$/.test(toks[1]!.v)
+  let depth = 0
+  for (let i = 1; i < toks.length; i++) {
+    const t = toks[i]!
+    if (t.k === 'ch' && t.v === '{') depth++
+    else if (t.k === 'ch' && t.v === '}') depth--
+    else if (depth === 0) return false
+  }
+  return depth === 0
+}
+
+/**
+ * An xparse argument specification: `m`, `o`, `O{default}`, each optionally prefixed by `+`
+ * (long arguments read the same here). Anything else (s, t, r, d, e, v, b, >{…}, !) is not
+ * followed, and the macro is then unread: never guessed.
+ * Example: `parseArgumentSpec(tokenize('m O{1}'))` gives a mandatory and an optional argument.
+ */
+export function parseArgumentSpec(spec: Token[]): { args: ArgumentSpec[] } | { unread: string } {
+  const toks = splitRuns(spec).filter(t => t.k !== 'sp')
+  const args: ArgumentSpec[] = []
+  for (let i = 0; i < toks.length; i++) {
+    const t = toks[i]!
+    if (t.k === 'ch' && t.v === '+') continue
+    if (t.k === 'ch' && t.v === 'm') args.push({ kind: 'mandatory' })
+    else if (t.k === 'ch' && t.v === 'o') args.push({ kind: 'optional' })
+    else if (t.k === 'ch' && t.v === 'O' && toks[i + 1]?.k === 'ch' && toks[i + 1]!.v === '{') {
+      const inner: Token[] = []
+      let depth = 0
+      let j = i + 1
+      for (; j < toks.length; j++) {
+        const u = toks[j]!
+        if (u.k === 'ch' && u.v === '{') {
+          if (depth++ === 0) continue
+        } else if (u.k === 'ch' && u.v === '}') {
+          if (--depth === 0) break
+        }
+        inner.push(u)
+      }
+      if (depth !== 0) return { unread: 'the argument specification has unbalanced braces' }
+      args.push({ kind: 'optional', default: inner })
+      i = j
+    } else {
+      return { unread: `argument type "${t.k === 'cs' ? '\\' + t.v : t.v}" is not followed` }
+    }
+    if (args.length > 9) return { unread: 'more than nine arguments' }
+  }
+  return { args }
 }

@@ -8,6 +8,7 @@ import type { Expr } from '../types/claims'
 import type { SideResult } from './expression'
 import { containsObject, exprTypes } from './classify'
 import { isChar, type MathNode } from './math-tree'
+import { isUnreadMacroReason } from './macros'
 
 /** What to do with one `lhs = rhs` step before any claim is made. */
 export type StepJudgement =
@@ -106,6 +107,17 @@ function hasCycleFactor(nodes: MathNode[]): boolean {
   return false
 }
 
+/** Commands and environments that draw a filled tableau (not just a shape). */
+const DRAWN_TABLEAU = new Set(['ytableaushort', 'young', 'youngtab', 'Young', 'tableau'])
+
+/** True if a tableau is drawn in the nodes: `s_{\ytableaushort{12,3}}`, `\begin{ytableau}…`. */
+function containsDrawnTableau(nodes: MathNode[]): boolean {
+  return nodes.some(n =>
+    (n.k === 'cs' && DRAWN_TABLEAU.has(n.v)) ||
+    (n.k === 'env' && (n.name === 'ytableau' || containsDrawnTableau(n.children))) ||
+    (n.k === 'group' && containsDrawnTableau(n.children)))
+}
+
 export interface StepToJudge {
   lhs: SideResult
   rhs: SideResult
@@ -124,6 +136,9 @@ export interface StepToJudge {
 export function judgeStep(step: StepToJudge): StepJudgement {
   const { lhs: l, rhs: r } = step
   if (step.definingLeadIn && isLoneSymbol(step.lhsNodes)) return { type: 'silent' }
+  if (containsDrawnTableau(step.lhsNodes) || containsDrawnTableau(step.rhsNodes)) {
+    return { type: 'notRead', reason: 'a tableau drawn with \\ytableaushort or \\young is not read; only \\ydiagram shapes are' }
+  }
   if (hasCycleFactor(step.lhsNodes) || hasCycleFactor(step.rhsNodes)) return { type: 'notRead', reason: 'a product of permutations in the symmetric group' }
   if (l.ok && r.ok) {
     if (isGroupWordEquation(l.expr, r.expr)) {
@@ -139,6 +154,12 @@ export function judgeStep(step: StepToJudge): StepJudgement {
     return { type: 'silent' }
   }
   const failures = [l, r].filter((s): s is Extract<SideResult, { ok: false }> => !s.ok)
+  const unreadMacro = failures.find(f => isUnreadMacroReason(f.reason))
+  if (unreadMacro) return { type: 'notRead', reason: unreadMacro.reason }
+  // `0 = F_0 \subset F_1`: an index 0 is no permutation; F_0, V_0 name the members of a flag.
+  if (failures.some(f => /^0 is not a permutation\b/.test(f.reason))) {
+    return { type: 'notRead', reason: 'an index 0 is not a permutation: a name such as F_0 in a flag or a sequence, not an object' }
+  }
   const unbound = failures.find(f => isUnboundReason(f.reason))
   if (unbound) return { type: 'notRead', reason: `${/(\S+) is not bound/.exec(unbound.reason)![1]} is not bound here: a general statement, not an example` }
   if (l.ok !== r.ok) {

@@ -9,12 +9,11 @@ import type {
   Claim, ClaimKind, ContextValue, NotReadMath, ReadFileInfo, ReaderWarning, WarningCode,
 } from '../types/claims'
 import { axisOfConvention, type ConventionAxis, type ConventionId } from '../types/conventions'
-import { decodeSource, lineStarts, positionAt } from './decode'
-import { maskSource } from './mask'
-import { resolveInclude } from './paths'
+import { positionAt } from './decode'
+import { ManuscriptFiles, type LoadedFile } from './files'
 import { Tokenizer, renderTokens, type Token } from './tokens'
-import { DEFINING_COMMANDS, Expander, ExpansionError, readDefinition, type MacroDefinition } from './macros'
-import { isTagComment, parseTag, type NotationObject, type TagDirective } from './tags'
+import { DEFINING_COMMANDS, Expander, ExpansionError, MacroTable, readDefinition } from './macros'
+import type { NotationObject, TagDirective } from './tags'
 import {
   MathSyntaxError, buildMathTree, renderNodes, spanOf, splitRows, splitStatements, type MathNode, type Statement,
 } from './math-tree'
@@ -22,18 +21,6 @@ import { SideParser, bindableSymbol, readPartition, readPermutation, ParseFail, 
 import { classifyClaim, containsObject, exprTypes } from './classify'
 import { isDefiningLeadIn, judgeStep, proseBefore, shortReason } from './precision'
 import type { ReaderLimits } from './limits'
-
-interface LoadedFile {
-  path: string
-  original: string
-  masked: string
-  starts: number[]
-  encoding: ReadFileInfo['encoding']
-  /** Tags attached to a line (skip, claim, use). */
-  lineTags: Map<number, TagDirective[]>
-  /** Tags that act from their position on (set, means), by offset. */
-  events: { offset: number; directive: TagDirective }[]
-}
 
 const MATH_ENVIRONMENTS = new Set([
   'equation', 'equation*', 'align', 'align*', 'gather', 'gather*', 'multline', 'multline*', 'flalign', 'flalign*',
@@ -43,7 +30,6 @@ const MATH_ENVIRONMENTS = new Set([
 const SINGLE_EQUATION_ENVS = new Set(['equation', 'equation*', 'multline', 'multline*', 'displaymath', 'dmath', 'dmath*'])
 const SECTIONING = new Set(['section', 'subsection', 'chapter', 'part'])
 const INCLUDES = new Set(['input', 'include', 'subfile', 'InputIfFileExists'])
-const TEX_EXTENSIONS = /\.(tex|ltx|latex)$/i
 
 type Closer = { kind: '$' } | { kind: '$$' } | { kind: 'cs'; name: string } | { kind: 'env'; name: string }
 
@@ -64,151 +50,53 @@ export class ReaderRun {
   readonly claims: Claim[] = []
   readonly warnings: ReaderWarning[] = []
   readonly notRead: NotReadMath[] = []
-  private readonly loaded = new Map<string, LoadedFile | null>()
-  private readonly roles = new Map<string, ReadFileInfo['role']>()
-  private readonly macros = new Map<string, MacroDefinition>()
+  /** The FILES stage: loading, roots, includes and packages. */
+  readonly sources: ManuscriptFiles
+  /** Macros, user environments and theorem-like environment names, as defined so far. */
+  readonly macroTable = new MacroTable()
   private readonly notation = new Map<string, NotationObject>()
   private readonly protectedNames = new Set<string>()
   private readonly bindings = new Map<string, ContextValue>()
   private readonly conventions = new Map<ConventionAxis, ConventionId>()
   private readonly budget = { produced: 0 }
   private readonly idCounts = new Map<string, number>()
-  private totalChars = 0
   private definitionCount = 0
   private claimLimitWarned = false
   private mainFile = ''
 
   constructor(
-    private readonly files: Record<string, string | Uint8Array>,
+    files: Record<string, string | Uint8Array>,
     private readonly limits: ReaderLimits,
-  ) {}
+  ) {
+    this.sources = new ManuscriptFiles(files, limits, (code, message, file, offset) => this.warn(code, message, file, offset))
+  }
 
   warn(code: WarningCode, message: string, file?: string, offset?: number): void {
     const w: ReaderWarning = { code, message }
     if (file !== undefined) {
       w.file = file
-      const f = this.loaded.get(file)
-      if (f && offset !== undefined) w.line = positionAt(f.starts, offset).line
+      const line = offset === undefined ? undefined : this.sources.lineOf(file, offset)
+      if (line !== undefined) w.line = line
     }
     this.warnings.push(w)
   }
 
-  /** Decode, mask and index a file once; null when it is binary or over the size budget. */
-  load(path: string): LoadedFile | null {
-    const cached = this.loaded.get(path)
-    if (cached !== undefined) return cached
-    const raw = this.files[path]
-    if (raw === undefined) return null
-    const decoded = decodeSource(raw)
-    if (decoded.encoding === 'binary') {
-      this.loaded.set(path, null)
-      this.warn('binary', `${path} looks like binary data, not LaTeX; it was not read`, path)
-      return null
-    }
-    let text = decoded.text
-    if (this.totalChars + text.length > this.limits.maxTotalChars) {
-      const keep = Math.max(0, this.limits.maxTotalChars - this.totalChars)
-      this.warn('limit', `${path}: input exceeds ${this.limits.maxTotalChars} characters in total; only the first ${keep} were read`, path)
-      text = text.slice(0, keep)
-    }
-    this.totalChars += text.length
-    const masked = maskSource(text)
-    const file: LoadedFile = {
-      path, original: text, masked: masked.text, starts: lineStarts(text), encoding: decoded.encoding,
-      lineTags: new Map(), events: [],
-    }
-    this.loaded.set(path, file)
-    if (decoded.encoding === 'latin-1') this.warn('encoding', `${path} is not valid UTF-8; it was read as Latin-1`, path)
-    for (const p of masked.problems) this.warn('syntax', p.message, path, p.offset)
-    this.readTags(file, masked.comments)
-    return file
-  }
-
-  private readTags(file: LoadedFile, comments: { offset: number; text: string; wholeLine: boolean }[]): void {
-    for (const c of comments) {
-      if (!isTagComment(c.text)) continue
-      const tag = parseTag(c.text)
-      for (const e of tag.errors) this.warn('tag', `tag not understood: ${e}`, file.path, c.offset)
-      const line = positionAt(file.starts, c.offset).line
-      const target = c.wholeLine ? this.nextContentLine(file, line) : line
-      for (const d of tag.directives) {
-        if (d.type === 'set' || d.type === 'means') file.events.push({ offset: c.offset, directive: d })
-        else {
-          const list = file.lineTags.get(target) ?? []
-          list.push(d)
-          file.lineTags.set(target, list)
-        }
-      }
-    }
-  }
-
-  private nextContentLine(file: LoadedFile, line: number): number {
-    for (let l = line + 1; l <= file.starts.length; l++) {
-      const from = file.starts[l - 1]!
-      const to = l < file.starts.length ? file.starts[l]! : file.masked.length
-      if (file.masked.slice(from, to).trim() !== '') return l
-    }
-    return line + 1
-  }
-
-  /** Choose the root file(s): the configured one, else those with \documentclass, else unincluded .tex files. */
-  chooseRoots(main: string | undefined): string[] {
-    const paths = Object.keys(this.files).sort()
-    if (main !== undefined) {
-      if (this.files[main] !== undefined) return [main]
-      this.warn('main-file', `the configured main file "${main}" is not in the input; looking for \\documentclass instead`)
-    }
-    const texPaths = paths.filter(p => TEX_EXTENSIONS.test(p))
-    const candidates = texPaths.length ? texPaths : paths.filter(p => !/\.(sty|cls|bib|bbl|png|jpe?g|pdf|eps)$/i.test(p))
-    const withClass = candidates.filter(p => {
-      const f = this.load(p)
-      return !!f && /\\documentclass\b/.test(f.masked) && !/\\documentclass\s*(\[[^\]]*\])?\s*\{subfiles\}/.test(f.masked)
-    })
-    if (withClass.length === 1) return withClass
-    if (withClass.length > 1) {
-      const ranked = [...withClass].sort((a, b) => rank(a, this.load(a)) - rank(b, this.load(b)) || a.localeCompare(b))
-      this.warn('main-file', `several files have \\documentclass (${withClass.join(', ')}); reading ${ranked[0]} as the main file`)
-      return [ranked[0]!]
-    }
-    if (candidates.length > 1) {
-      this.warn('main-file', `no file has \\documentclass; reading every file not included by another, in name order`)
-    }
-    const included = new Set<string>()
-    for (const p of candidates) {
-      const f = this.load(p)
-      if (!f) continue
-      for (const m of f.masked.matchAll(/\\(?:input|include|subfile)\s*\{([^{}]*)\}/g)) {
-        const r = resolveInclude(m[1]!, p, p, q => this.files[q] !== undefined)
-        if ('path' in r) included.add(r.path)
-      }
-    }
-    return candidates.filter(p => !included.has(p))
-  }
-
   run(main: string | undefined): ReadFileInfo[] {
-    const roots = this.chooseRoots(main)
+    const roots = this.sources.chooseRoots(main)
     if (!roots.length) this.warn('main-file', 'no LaTeX file in the input')
     for (const root of roots) {
       this.mainFile = root
-      this.roles.set(root, 'main')
+      this.sources.roles.set(root, 'main')
       this.bindings.clear()
       this.processFile(root, 0, [])
     }
-    return Object.keys(this.files).sort().map(path => {
-      const f = this.loaded.get(path)
-      return {
-        path,
-        encoding: f ? f.encoding : f === null ? 'binary' : decodeGuess(this.files[path]!),
-        lines: f ? f.starts.length : 0,
-        role: this.roles.get(path) ?? 'unused',
-      }
-    })
+    return this.sources.fileInfo()
   }
 
   private processFile(path: string, depth: number, stack: string[]): void {
-    const file = this.load(path)
+    const file = this.sources.load(path)
     if (!file) return
-    const x = new Expander(new Tokenizer(file.masked), this.macros, this.protectedNames, this.limits, this.budget)
+    const x = new Expander(new Tokenizer(file.masked), this.macroTable, this.protectedNames, this.limits, this.budget)
     let nextEvent = 0
     const applyEvents = (upTo: number) => {
       while (nextEvent < file.events.length && file.events[nextEvent]!.offset < upTo) {
@@ -249,7 +137,8 @@ export class ReaderRun {
         }
       } else if (SECTIONING.has(name)) this.bindings.clear()
       else if (INCLUDES.has(name)) this.include(file, x, t, depth, chain)
-      else if (name === 'usepackage' || name === 'RequirePackage') this.usePackage(file, x, t, depth, chain)
+      else if (name === 'usepackage' || name === 'RequirePackage') this.usePackage(file, x, t, depth, chain, 'sty')
+      else if (name === 'documentclass' || name === 'LoadClass') this.usePackage(file, x, t, depth, chain, 'cls')
     }
     applyEvents(Infinity)
   }
@@ -276,7 +165,7 @@ export class ReaderRun {
         return
       }
       this.definitionCount++
-      this.macros.set(def.name, def)
+      this.macroTable.add(def)
     } catch (e) {
       if (!(e instanceof ExpansionError)) throw e
       this.warn('macro', `${e.message} (definition ignored)`, file.path, e.pos)
@@ -312,42 +201,19 @@ export class ReaderRun {
       this.warn('syntax', e.message, file.path, e.pos)
       return
     }
-    if (!target) {
-      this.warn('missing-file', `\\${cmd.v} without a file name`, file.path, cmd.pos)
-      return
-    }
-    const r = resolveInclude(target, file.path, this.mainFile, p => this.files[p] !== undefined)
-    if ('escapes' in r) {
-      this.warn('path-escape', `\\${cmd.v}{${target}} points outside the manuscript; it was not read`, file.path, cmd.pos)
-      return
-    }
-    if ('missing' in r) {
-      this.warn('missing-file', `\\${cmd.v}{${target}}: no such file in the manuscript (tried ${r.missing.join(', ')})`, file.path, cmd.pos)
-      return
-    }
-    if (chain.includes(r.path)) {
-      this.warn('include-cycle', `\\${cmd.v}{${target}} would read ${r.path} again inside itself (${[...chain, r.path].join(' → ')}); skipped`, file.path, cmd.pos)
-      return
-    }
-    if (depth + 1 > this.limits.maxIncludeDepth) {
-      this.warn('limit', `\\${cmd.v}{${target}} nests files more than ${this.limits.maxIncludeDepth} deep; skipped`, file.path, cmd.pos)
-      return
-    }
-    if (!this.roles.has(r.path)) this.roles.set(r.path, 'included')
-    this.processFile(r.path, depth + 1, chain)
+    const included = this.sources.openInclude(cmd.v, target, file.path, this.mainFile, chain, depth, cmd.pos)
+    if (included) this.processFile(included, depth + 1, chain)
   }
 
-  /** \usepackage{mymacros}: read mymacros.sty from the bundle for its definitions. */
-  private usePackage(file: LoadedFile, x: Expander, cmd: Token, depth: number, chain: string[]): void {
+  /** \usepackage{mymacros} or \documentclass{myclass}: read mymacros.sty or myclass.cls from the bundle for its definitions. */
+  private usePackage(file: LoadedFile, x: Expander, cmd: Token, depth: number, chain: string[], extension: 'sty' | 'cls'): void {
     try {
       x.readOptional(cmd)
       const arg = this.readFileArgument(x, cmd)
       if (!arg) return
       for (const name of arg.split(',').map(s => s.trim()).filter(Boolean)) {
-        const r = resolveInclude(`${name}.sty`, file.path, this.mainFile, p => this.files[p] !== undefined)
-        if (!('path' in r) || chain.includes(r.path) || depth + 1 > this.limits.maxIncludeDepth) continue
-        if (!this.roles.has(r.path)) this.roles.set(r.path, 'included')
-        this.processFile(r.path, depth + 1, chain)
+        const path = this.sources.openPackage(name, extension, file.path, this.mainFile, chain, depth)
+        if (path) this.processFile(path, depth + 1, chain)
       }
     } catch (e) {
       if (!(e instanceof ExpansionError)) throw e
@@ -723,15 +589,4 @@ function readEnvName(x: Expander, into?: Token[]): string | undefined {
     name += t.k === 'cs' ? '\\' + t.v : t.v
   }
   return undefined
-}
-
-function rank(path: string, f: LoadedFile | null): number {
-  let score = path.split('/').length * 10
-  if (f && /\\begin\s*\{document\}/.test(f.masked)) score -= 100
-  if (/^(main|ms|paper|article)\.tex$/i.test(path.split('/').pop() ?? '')) score -= 5
-  return score
-}
-
-function decodeGuess(raw: string | Uint8Array): ReadFileInfo['encoding'] {
-  return decodeSource(typeof raw === 'string' ? raw : raw.subarray(0, 4096)).encoding
 }

@@ -33,6 +33,31 @@ describe('positions agree with unified-latex', () => {
     expect(ours).toEqual(inlineMathStarts(tex))
   })
 
+  it('keeps every position right after inline code, listings, drawings and layout settings', () => {
+    const tex = [
+      '\\ytableausetup{boxsize=1.2em, aligntableaux=center} \\tikzset{dot/.style={circle}} Then $\\ell(21) = 1$.',
+      'Code: \\verb|$\\ell(1) = 5$| then $\\ell(321) = 3$, \\lstinline{a = {b}} and $\\ell(312) = 2$, \\verb+x+ $\\ell(2143) = 2$.',
+      '\\begin{tikzpicture}[scale=0.5]',
+      '  \\node at (0,0) {$\\ell(21) = 7$}; \\draw (0,0) -- (1,1);',
+      '\\end{tikzpicture} After the drawing $\\ell(231) = 2$ and \\pgfplotsset{width=5cm} $\\ell(132) = 1$.',
+      '\\begin{lstlisting}',
+      'ell(21) = 9 $x$',
+      '\\end{lstlisting}',
+      '\\begin{comment} $\\ell(21) = 4$ \\end{comment} Last: $\\ell(4321) = 6$',
+    ].join('\n')
+    const expected: { line: number; column: number }[] = []
+    visit(parse(tex), (node, info) => {
+      const inDrawing = info.parents.some(p => p.type === 'environment' && (p as { env?: string }).env === 'tikzpicture')
+      if (node.type === 'inlinemath' && node.position && !inDrawing) expected.push({ line: node.position.start.line, column: node.position.start.column })
+    })
+    const read = readSnippet(tex)
+    // unified-latex reads \verb, \lstinline, lstlisting and comment as code, as we do; inside tikzpicture it still finds math, which we hide.
+    expect(read.claims.map(c => ({ line: c.line, column: c.column - 1 }))).toEqual(expected)
+    expect(read.claims.map(c => c.status)).toEqual(Array(7).fill('ready'))
+    expect(read.notRead).toEqual([])
+    expect(read.warnings).toEqual([])
+  })
+
   it('places align rows on the lines unified-latex reports for them', () => {
     const tex = readFileSync(join(FIXTURES, 'workshop-notes/sections/examples.tex'), 'utf8')
     const rowLines: number[] = []
