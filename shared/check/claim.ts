@@ -9,7 +9,7 @@ import type { ClaimDiff } from '../types/report'
 import { BudgetMeter, MathError, type Budget } from '../math'
 import { compareSides } from './compare'
 import { permutationOf, type EngineMemo } from './evaluate'
-import { UnsupportedClaimError } from './values'
+import { INFINITE_WITH_FINITE, UnsupportedClaimError } from './values'
 
 export interface VariantResult {
   conventions: ConventionSet
@@ -55,13 +55,16 @@ export function evaluateClaim(claim: Claim, options: { fixed?: Partial<Conventio
     }
   }
   catch (error) {
-    return { ...describeFailure(error), permutations }
+    return { ...describeFailure(error, claim.question), permutations }
   }
   return { status: 'evaluated', axes, fixed, variants, permutations }
 }
 
-function describeFailure(error: unknown): { status: 'unsupported' | 'error', message: string } {
-  if (error instanceof UnsupportedClaimError) return { status: 'unsupported', message: error.message }
+function describeFailure(error: unknown, question: Claim['question']): { status: 'unsupported' | 'error', message: string } {
+  if (error instanceof UnsupportedClaimError) {
+    if (error.message === INFINITE_WITH_FINITE && question) return { status: 'unsupported', message: `${error.message}${variablesAdvice(question.lhs, question.rhs)}` }
+    return { status: 'unsupported', message: error.message }
+  }
   if (error instanceof MathError) {
     switch (error.code) {
       case 'TOO_LARGE': return { status: 'error', message: `over budget: ${error.message}` }
@@ -71,6 +74,33 @@ function describeFailure(error: unknown): { status: 'unsupported' | 'error', mes
     }
   }
   return { status: 'error', message: `internal error: ${(error as Error)?.message ?? String(error)}` }
+}
+
+const FAMILY_LETTERS = { schur: 's', elementary: 'e', complete: 'h', monomial: 'm', powerSum: 'p' } as const
+
+/**
+ * Advice that fits the claim's own object in infinitely many variables: `; write h_{2}(x_1,…,x_n)
+ * to fix its variables` for h_2. A Stanley function F_w, only read without variables, gets no such advice.
+ */
+function variablesAdvice(...sides: Expr[]): string {
+  const found = sides.map(firstInfiniteObject).find(Boolean)
+  if (!found) return ''
+  if (found.type === 'stanley') return '; F_w is read in infinitely many variables: compare it with symmetric functions such as s_λ'
+  const parts = (p: number[]) => (p.some(v => v > 9) ? p.join(',') : p.join(''))
+  const index = found.skew ? `${parts(found.index)}/${parts(found.skew)}` : parts(found.index)
+  return `; write ${FAMILY_LETTERS[found.family]}_{${index}}(x_1,…,x_n) to fix its variables`
+}
+
+function firstInfiniteObject(e: Expr): Extract<Expr, { type: 'symmetric' | 'stanley' }> | undefined {
+  if (e.type === 'stanley' || (e.type === 'symmetric' && e.variableCount === undefined)) return e
+  const children: Expr[] = e.type === 'add' ? e.terms : e.type === 'multiply' ? e.factors
+    : e.type === 'negate' ? [e.arg] : e.type === 'power' ? [e.base] : e.type === 'dividedDifference' ? [e.arg]
+      : e.type === 'determinant' ? e.rows.flat() : e.type === 'evaluateAtOnes' ? [e.arg] : []
+  for (const c of children) {
+    const found = firstInfiniteObject(c)
+    if (found) return found
+  }
+  return undefined
 }
 
 /** Every convention set over `axes`, the other axes taken from `fixed` or the reference. */

@@ -15,7 +15,7 @@ import {
   schubertProduct, addChecked, mulChecked, absCoefficient, toCoefficient, type Coefficient, type SchubertCombination, type SchurCombination,
 } from '../math'
 import { evaluate, permutationOf, type EvaluationEnv } from './evaluate'
-import { toPolynomial, UnsupportedClaimError, type Value } from './values'
+import { INFINITE_WITH_FINITE, toPolynomial, UnsupportedClaimError, type Value } from './values'
 
 export interface Comparison {
   holds: boolean
@@ -68,7 +68,7 @@ export function compareSides(lhs: Expr, rhs: Expr, env: EvaluationEnv): Comparis
 function schurOf(v: Value): SchurCombination {
   if (v.kind === 'symmetric') return v.schur
   if (v.kind === 'number') return v.value === 0n ? new Map() : new Map([['', toCoefficient(v.value)]])
-  throw new UnsupportedClaimError('one side is a symmetric function in infinitely many variables and the other a polynomial in finitely many; write s_λ(x_1,…,x_n) to compare them')
+  throw new UnsupportedClaimError(INFINITE_WITH_FINITE)
 }
 
 /**

@@ -21,6 +21,9 @@ export class UnsupportedClaimError extends Error {
   override readonly name = 'UnsupportedClaimError'
 }
 
+/** The reason for mixing the two kinds of value; the claim's own objects add advice (see check/claim.ts). */
+export const INFINITE_WITH_FINITE = 'a symmetric function in infinitely many variables cannot be combined with a polynomial in finitely many'
+
 export const numberValue = (value: bigint | number): Value => ({ kind: 'number', value: BigInt(value) })
 
 /** Past 2^53 coefficients are exact bigints (the engine's Coefficient), never rounded. */
@@ -29,13 +32,13 @@ const safeNumber = toCoefficient
 export function toPolynomial(v: Value): Polynomial {
   if (v.kind === 'polynomial') return v.poly
   if (v.kind === 'number') return Polynomial.constant(safeNumber(v.value))
-  throw new UnsupportedClaimError('a symmetric function in infinitely many variables cannot be combined with a polynomial in finitely many; write s_λ(x_1,…,x_n) to fix the variables')
+  throw new UnsupportedClaimError(INFINITE_WITH_FINITE)
 }
 
 function toSymmetric(v: Value): SchurCombination {
   if (v.kind === 'symmetric') return v.schur
   if (v.kind === 'number') return v.value === 0n ? new Map() : new Map([[partitionKey([]), safeNumber(v.value)]])
-  throw new UnsupportedClaimError('a polynomial in finitely many variables cannot be combined with a symmetric function in infinitely many')
+  throw new UnsupportedClaimError(INFINITE_WITH_FINITE)
 }
 
 

@@ -832,7 +832,7 @@ export function readPermutation(nodes: MathNode[], ctx: ParseContext, used: Map<
         const inner = unwrap(sup)
         const stripped = isCh(inner[0], '(') && isCh(inner[inner.length - 1], ')') ? inner.slice(1, -1) : inner
         n = readInteger(stripped)
-        if (n === undefined) throw new ParseFail(`cannot read n in w_0^{${describeNodes(sup)}}`)
+        if (n === undefined) throw new ParseFail(`cannot read the superscript of w_0^{${describeNodes(sup)}}; only w_0^{(n)}, the longest permutation of S_n, is read`)
       } else {
         const bound = ctx.bindings.get('n')
         if (bound?.kind !== 'integer') throw new ParseFail('n is not bound: w_0 needs n (write w_0^{(n)} or "Let $n = 4$")')
@@ -957,7 +957,11 @@ function isPermutationOfOneToN(entries: number[]): boolean {
 }
 
 function checkOneLine(entries: number[]): PermutationSpec {
-  if (!isPermutationOfOneToN(entries)) throw new ParseFail(`${listForMessage(entries, entries.some(v => v > 9) ? ',' : '')} is not a permutation of 1..${entries.length}`)
+  if (!isPermutationOfOneToN(entries)) {
+    // Digits written together are one entry each: 12345678910 is eleven entries, not ten.
+    const hint = entries.length > 9 && entries.every(v => v <= 9) ? '; write entries of 10 or more with commas or in [ ]' : ''
+    throw new ParseFail(`${listForMessage(entries, entries.some(v => v > 9) ? ',' : '')} is not a permutation of 1..${entries.length}${hint}`)
+  }
   return { form: 'oneLine', entries }
 }
 

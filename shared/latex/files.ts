@@ -35,9 +35,12 @@ const NOT_SOURCE = /\.(sty|cls|bib|bbl|bst|png|jpe?g|gif|pdf|eps|ps|svg|json|txt
 /** Names authors give the main file; among equals, the earlier name wins. */
 const MAIN_NAMES = ['main', 'ms', 'paper', 'article', 'manuscript']
 
-/** A \documentclass that is not inside a comment and not the subfiles class (masked text). */
+/**
+ * A \documentclass outside comments, \iffalse and verbatim (the text is masked), and not a class
+ * for parts of a document: subfiles (a chapter compiled alone) or standalone (a figure).
+ */
 function hasDocumentClass(masked: string): boolean {
-  return /\\documentclass\b/.test(masked) && !/\\documentclass\s*(\[[^\]]*\])?\s*\{subfiles\}/.test(masked)
+  return /\\documentclass\b/.test(masked) && !/\\documentclass\s*(\[[^\]]*\])?\s*\{\s*(subfiles|standalone)\s*\}/.test(masked)
 }
 
 export class ManuscriptFiles {

@@ -40,6 +40,14 @@ export function isDefiningLeadIn(prose: string): boolean {
   return DEFINING_LEAD_IN.test(prose)
 }
 
+/**
+ * Notation a notation reader declines on purpose (`\ydiagram{1,3}`: English or French order
+ * unclear; `\ydiagram{1+2,3}`): its message says "left unread" or "is not read". Not read.
+ */
+export function isDeliberatelyUnread(reason: string): boolean {
+  return /\b(left unread|is not read)\b/.test(reason)
+}
+
 /** Unbound letters (λ, w) make a general identity, not an example: never a verdict. */
 export function isUnboundReason(reason: string): boolean {
   return / is not bound\b/.test(reason)
@@ -154,14 +162,17 @@ export function judgeStep(step: StepToJudge): StepJudgement {
     return { type: 'silent' }
   }
   const failures = [l, r].filter((s): s is Extract<SideResult, { ok: false }> => !s.ok)
-  const unreadMacro = failures.find(f => isUnreadMacroReason(f.reason))
+  const unreadMacro = failures.find(f => isUnreadMacroReason(f.reason) || isDeliberatelyUnread(f.reason))
   if (unreadMacro) return { type: 'notRead', reason: unreadMacro.reason }
   // `0 = F_0 \subset F_1`: an index 0 is no permutation; F_0, V_0 name the members of a flag.
   if (failures.some(f => /^0 is not a permutation\b/.test(f.reason))) {
     return { type: 'notRead', reason: 'an index 0 is not a permutation: a name such as F_0 in a flag or a sequence, not an object' }
   }
   const unbound = failures.find(f => isUnboundReason(f.reason))
-  if (unbound) return { type: 'notRead', reason: `${/(\S+) is not bound/.exec(unbound.reason)![1]} is not bound here: a general statement, not an example` }
+  if (unbound) return { type: 'notRead', reason: unboundReason(unbound.reason) }
+  // `\ell(\lambda)` with λ a partition, `\mathfrak{S}_\mu`: the paper's own notation for another object.
+  const otherKind = failures.find(f => / is bound to an? \w+, not an? \w+$/.test(f.reason))
+  if (otherKind) return { type: 'notRead', reason: `${otherKind.reason}: another notation, not read` }
   if (l.ok !== r.ok) {
     const good = (l.ok ? l : r) as Extract<SideResult, { ok: true }>
     const bad = failures[0]!
@@ -173,6 +184,17 @@ export function judgeStep(step: StepToJudge): StepJudgement {
   const recognised = failures.find(f => f.recognised)
   if (recognised) return { type: 'unsupported', reason: recognised.reason }
   return { type: 'notRead', reason: shortReason(failures[0]!.reason) }
+}
+
+/**
+ * The not-read reason for an unbound letter, keeping the advice that fits it: `w is not bound
+ * here: a general statement, not an example (to check one, write "Let $w = 2143$" first)`.
+ */
+function unboundReason(reason: string): string {
+  const name = /(\S+) is not bound/.exec(reason)![1]
+  const advice = /\(write (.*)\)[^)]*$/.exec(reason)?.[1]?.replace(/ before the claim$/, '')
+  const base = `${name} is not bound here: a general statement, not an example`
+  return advice ? `${base} (to check one, write ${advice} first)` : base
 }
 
 /** Cut a message to about 200 characters. */
