@@ -58,6 +58,7 @@ export function maskSource(src: string): MaskedSource {
   const special = /[\\%]/g
   const aliases = inlineCodeAliases(src)
   const inlineCode = new Set([...INLINE_CODE_COMMANDS, ...aliases.map(a => a.name)])
+  let nextAlias = 0
   let iffalseDepth = 0
   let iffalseStart = -1
   let m: RegExpExecArray | null
@@ -94,8 +95,10 @@ export function maskSource(src: string): MaskedSource {
       } else if (name.startsWith('if')) iffalseDepth++
       continue
     }
-    const definition = aliases.find(a => i >= a.start && i < a.end)
-    if (definition) {
+    // Definitions come in file order and the scan only moves forward: one pointer, no search.
+    while (nextAlias < aliases.length && aliases[nextAlias]!.end <= i) nextAlias++
+    const definition = aliases[nextAlias]
+    if (definition && i >= definition.start) {
       // `\let\code=\lstinline` itself is a definition, not inline code: the reader needs it whole.
       special.lastIndex = definition.end
       continue

@@ -93,3 +93,15 @@ describe('layout settings', () => {
     ])
   })
 })
+
+describe('many aliases', () => {
+  // Regression guard: each backslash once searched every alias definition (quadratic in the file).
+  it('reads a file with 20,000 alias definitions and 5,000 uses', () => {
+    let tex = ''
+    for (let i = 0; i < 20_000; i++) tex += `\\let\\c${String.fromCharCode(97 + (i % 26))}=\\lstinline\n`
+    for (let i = 0; i < 5_000; i++) tex += `\\ca|x_1 = 2| $\\ell(21) = 1$\n`
+    const r = readSnippet(tex)
+    expect(r.claims).toHaveLength(5_000)
+    expect(r.notRead).toEqual([])
+  })
+})
