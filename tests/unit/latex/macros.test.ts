@@ -45,6 +45,11 @@ describe('\\let', () => {
     expect(ready(r).map(c => c.question!.rhs)).toEqual([int(1), int(2)])
   })
 
+  it('copies a character with \\let\\eq== and keeps the text after it', () => {
+    const r = readSnippet('\\let\\eq==\\let\\plus=+\n$\\mathfrak{S}_{132} \\eq x_1 \\plus x_2$')
+    expect(ready(r).map(c => c.question!.rhs)).toEqual([{ type: 'add', terms: [x(1), x(2)] }])
+  })
+
   it('still stops a macro that really calls itself', () => {
     const r = readSnippet('\\renewcommand{\\sum}{\\sum\\limits}\n$\\ell(21) = \\sum_i 1$')
     expect(r.claims).toEqual([expect.objectContaining({ status: 'error', reason: expect.stringMatching(/\\sum is nested more than/) })])
