@@ -19,7 +19,7 @@ import {
   MathSyntaxError, buildMathTree, renderNodes, spanOf, splitRows, splitStatements, type MathNode, type Statement,
 } from './math-tree'
 import { SideParser, bindableSymbol, readPartition, readPermutation, ParseFail, type ParseContext, type SideResult } from './expression'
-import { isSpaceBinding, proseSaysGrassmannian, settingForClaim, settingInMath } from './notation/grassmannian'
+import { isSpaceBinding, proseSaysGrassmannian, settingForClaim, settingInMath, trailingSetting } from './notation/grassmannian'
 import { classifyClaim, containsObject, exprTypes } from './classify'
 import { isDefiningLeadIn, judgeStep, proseBefore, shortReason } from './precision'
 import type { ReaderLimits } from './limits'
@@ -501,6 +501,7 @@ export class ReaderRun {
     }
     const rows = splitRows(tree)
     const named = settingInMath(rows.map(r => r.nodes), proseSaysGrassmannian(proseBefore(region.file.masked, region.pos)))
+      ?? trailingSetting(region.file.masked, region.end)
     if (named) this.textSetting = { setting: named === 'ambiguous' ? null : named, depth: this.envDepth }
     const regionLabel = region.env && SINGLE_EQUATION_ENVS.has(region.env) ? rows.find(r => r.label)?.label : undefined
     const startLine = positionAt(region.file.starts, region.pos).line

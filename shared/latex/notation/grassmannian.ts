@@ -169,6 +169,23 @@ export function settingInMath(rows: MathNode[][], proseSaysGrassmannian: boolean
   return { ...first, ...(name ? { name } : {}) }
 }
 
+const SPACE_SOURCE = String.raw`(?:\\(?:mathrm|operatorname)\s*\{\s*Gr\s*\}|\\Gr\b|Gr)\s*\(\s*(\d{1,4})\s*,\s*(\d{1,4})\s*\)`
+const STAR_SOURCE = String.raw`\^\s*(?:\*|\{\s*\*\s*\}|\\ast\b|\{\s*\\ast\s*\}|\\bullet\b|\{\s*\\bullet\s*\})`
+const TRAILING = new RegExp(String.raw`^\s*(?:in|on|inside)\s+\$\s*(?:(Q?H)\s*${STAR_SOURCE}\s*\(\s*${SPACE_SOURCE}\s*\)|${SPACE_SOURCE})\s*\$`)
+
+/**
+ * "… $\sigma_1^2 = \sigma_2 + \sigma_{11}$ in $H^*(\mathrm{Gr}(2,4))$": the setting named right
+ * after a piece of math (only "in", "on" or "inside" between them), read from the source as
+ * written; e.g. `trailingSetting(' in $QH^*(\mathrm{Gr}(2,5))$.', 0)` is the quantum Gr(2,5).
+ */
+export function trailingSetting(masked: string, end: number): GrassmannianSetting | undefined {
+  const m = TRAILING.exec(masked.slice(end, end + 120))
+  if (!m) return undefined
+  const quantum = m[1] === 'QH'
+  const s = m[2] !== undefined ? space(Number(m[2]), Number(m[3])) : space(Number(m[4]), Number(m[5]))
+  return s && { ring: quantum ? 'quantum' : 'cohomology', ...s }
+}
+
 /** True if the prose before the math calls it a Grassmannian (so a bare `G(2,5)` is one). */
 export function proseSaysGrassmannian(prose: string): boolean {
   return /grassmannian/i.test(prose)

@@ -29,6 +29,18 @@ describe('the Grassmannian setting', () => {
     expect(claims[0]!.kind).toBe(setting.ring === 'quantum' ? 'quantumGrassmannian' : 'grassmannian')
   })
 
+  it.each([
+    ['We have $\\sigma_1^2 = \\sigma_2+\\sigma_{11}$ in $H^*(\\mathrm{Gr}(2,4))$.', { ring: 'cohomology', k: 2, n: 4 }],
+    ['We have $\\sigma_1^2 = \\sigma_2+\\sigma_{11}$ in $QH^{*}(\\mathrm{Gr}(2,5))$.', { ring: 'quantum', k: 2, n: 5 }],
+    ['We have $\\sigma_1^2 = \\sigma_2+\\sigma_{11}$ on $\\mathrm{Gr}(3,6)$.', { ring: 'cohomology', k: 3, n: 6 }],
+  ])('reads a setting named right after the claim: %s', (tex, setting) => {
+    expect(ready(readSnippet(tex)).map(c => c.question?.setting)).toEqual([setting])
+  })
+
+  it('a Grassmannian later in the sentence, after other words, is not the claim\'s setting', () => {
+    expect(readSnippet('We have $\\sigma_1^2 = \\sigma_2+\\sigma_{11}$, which fails in $H^*(\\mathrm{Gr}(2,4))$.').claims).toEqual([])
+  })
+
   it('does not read σ_λ without a setting, and lists it as not read', () => {
     const r = readSnippet('We have $\\sigma_1^2 = \\sigma_2+\\sigma_{11}$.')
     expect(r.claims).toEqual([])
