@@ -653,8 +653,12 @@ export class SideParser {
     const { sub, sup } = this.readScripts()
     const exponent = sup ? readInteger(sup) : undefined
     if (sup && exponent === undefined) throw new ParseFail('a superscript on σ_λ other than a power is not read')
-    this.recognised = true
     const partition = readPartition(sub!, this.ctx, this.used)
+    // σ_i(x_1) is a map applied to something (a reflection, a permutation), not a class; a
+    // parenthesis holding classes, σ_1(σ_1 + σ_2), is a product.
+    const paren = this.parenthesised()
+    if (paren && !paren.content.some(m => isCs(m, 'sigma') || isCh(m, 'q'))) throw new ParseFail('σ_λ(…) is a map applied to an argument, not a Schubert class')
+    this.recognised = true
     this.meaningful = true
     const cls: Expr = { type: 'schubertClass', partition }
     return exponent === undefined ? cls : { type: 'power', base: cls, exponent }

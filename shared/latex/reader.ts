@@ -646,6 +646,9 @@ export class ReaderRun {
     if (relation.rel !== '=' && !claimTag) return undefined
     let judgement = judgeStep({ lhs: l, rhs: r, lhsNodes: lhs.nodes, rhsNodes: rhs.nodes, definingLeadIn, inObjectChain: !!chainKind })
     if (relation.rel !== '=') judgement = { type: 'unsupported', reason: `the relation ${relation.name} is not checked; only equalities are` }
+    else if (judgement.type === 'claim' && l.ok && r.ok && settingForClaim(l.expr, r.expr, ctx.grassmannian) === 'mixed') {
+      judgement = { type: 'notRead', reason: 'σ_λ next to polynomials or other objects (a presentation of the ring?) is not read' }
+    }
     if (!claimTag && judgement.type === 'silent') return emitted
     if (!claimTag && judgement.type === 'notRead') {
       const index = this.pushNotRead(file, Math.min(lspan.pos, rspan.pos), Math.max(lspan.end, rspan.end), judgement.reason)
@@ -667,7 +670,8 @@ export class ReaderRun {
       ...(claimTag ? { tagged: true } : {}),
     }
     if (judgement.type === 'claim' && l.ok && r.ok) {
-      const setting = settingForClaim(l.expr, r.expr, ctx.grassmannian)
+      const found = settingForClaim(l.expr, r.expr, ctx.grassmannian)
+      const setting = found === 'mixed' ? undefined : found
       const own = setting ? (setting.ring === 'quantum' ? 'quantumGrassmannian' : 'grassmannian') : classifyClaim(l.expr, r.expr)
       // A step of plain numbers ("= 1 + 2") in a chain about ℓ(w) is still about ℓ(w).
       const numbersOnly = own === 'polynomial' && !exprTypes(l.expr).has('variable') && !exprTypes(r.expr).has('variable')

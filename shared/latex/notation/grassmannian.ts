@@ -235,9 +235,11 @@ function visit(e: Expr, f: (e: Expr) => void): void {
  * The setting a claim is checked in, or undefined (checked as before, in Λ or in polynomials).
  * A claim takes the setting when it writes σ_λ or q, or when it is a Schur identity in s, e, h
  * without variables ("s_1 s_1 = s_2 + s_{11}" in a Gr(2,4) section is an identity in H*(Gr(2,4)):
- * Λ → H*(Gr(k,n)) is a ring map, so what holds in Λ still holds there).
+ * Λ → H*(Gr(k,n)) is a ring map, so what holds in Λ still holds there). `'mixed'` when σ_λ or q
+ * stand next to x_i or other objects ("σ_1 = x_1 + x_2" in a presentation of the ring): such a
+ * step is not read.
  */
-export function settingForClaim(lhs: Expr, rhs: Expr, setting: GrassmannianSetting | undefined): GrassmannianSetting | undefined {
+export function settingForClaim(lhs: Expr, rhs: Expr, setting: GrassmannianSetting | undefined): GrassmannianSetting | 'mixed' | undefined {
   if (!setting) return undefined
   let classes = false
   let symmetric = false
@@ -255,6 +257,6 @@ export function settingForClaim(lhs: Expr, rhs: Expr, setting: GrassmannianSetti
     })
   }
   if (tensor) return undefined
-  if (classes) return setting
+  if (classes) return other ? 'mixed' : setting
   return symmetric && !other ? setting : undefined
 }

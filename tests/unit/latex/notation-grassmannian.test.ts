@@ -133,6 +133,14 @@ describe('Schubert classes σ_λ', () => {
     expect(r.claims).toEqual([])
   })
 
+  it('σ_λ next to x_i (a presentation of the ring) and σ_i applied to an argument are not claims', () => {
+    const r = readSnippet('In $H^*(\\mathrm{Gr}(2,4))$, $\\sigma_1 = x_1 + x_2$ and $\\sigma_1(x_1) = x_2$.')
+    expect(r.claims).toEqual([])
+    expect(r.notRead.map(n => n.source)).toEqual(['\\sigma_1 = x_1 + x_2'])
+    // A parenthesis of classes is a product.
+    expect(verdictsOf('In $H^*(\\mathrm{Gr}(2,4))$, $\\sigma_1(\\sigma_1+\\sigma_2) = \\sigma_2 + \\sigma_{11} + \\sigma_{21}$.')).toEqual(['verified'])
+  })
+
   it('σ bound to a permutation stays a permutation', () => {
     const r = readSnippet('In $H^*(\\mathrm{Gr}(2,4))$ let $\\sigma = 2143$. Then $\\sigma_1^2 = \\sigma_2+\\sigma_{11}$.')
     expect(r.claims).toEqual([])
