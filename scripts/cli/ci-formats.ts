@@ -97,6 +97,7 @@ function diffText(claim: ReportClaim): string {
       if (diff.missing.length > 0) parts.push(`missing: ${terms(diff.missing, diff.truncated?.missing)}`)
       if (diff.extra.length > 0) parts.push(`extra: ${terms(diff.extra, diff.truncated?.extra)}`)
       if (diff.wrongCoefficient.length > 0) parts.push(`wrong coefficients: ${diff.wrongCoefficient.slice(0, 8).map(w => `${w.term} written ${w.claimed}, computed ${w.computed}`).join('; ')}`)
+      for (const note of diff.notes ?? []) parts.push(note)
       return parts.join('\n')
     }
   }

@@ -119,6 +119,7 @@ function renderDiff(diff: ClaimDiff | null, indent: string, paint: Paint): strin
       if (diff.extra.length > 0) out.push(`${indent}extra     ${diff.extra.map(t => paint('bad', signed(t.coefficient, t.term))).join('  ')}${more(diff.extra.length, diff.truncated?.extra)}`)
       for (const w of diff.wrongCoefficient) out.push(`${indent}coefficient of ${w.term}: written ${paint('bad', w.claimed)}, computed ${paint('good', w.computed)}`)
       if (diff.truncated && diff.truncated.wrongCoefficient > diff.wrongCoefficient.length) out.push(paint('quiet', `${indent}… and ${diff.truncated.wrongCoefficient - diff.wrongCoefficient.length} more wrong coefficients`))
+      for (const note of diff.notes ?? []) out.push(`${indent}${note}`)
       return out
     }
   }

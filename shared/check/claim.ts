@@ -50,7 +50,7 @@ export function evaluateClaim(claim: Claim, options: { fixed?: Partial<Conventio
     for (const conventions of combinations(axes, fixed)) {
       // Each convention variant gets its own meter: the time limit is per evaluation, not shared.
     const meter = new BudgetMeter({ ...CLAIM_BUDGET, ...options.budget })
-      const comparison = compareSides(claim.question.lhs, claim.question.rhs, { conventions, meter, memo })
+      const comparison = compareSides(claim.question.lhs, claim.question.rhs, { conventions, meter, memo, ...(claim.question.setting ? { grassmannian: claim.question.setting } : {}) })
       variants.push({ conventions, ...comparison })
     }
   }
@@ -120,7 +120,8 @@ function walk(exprs: readonly Expr[], visit: (e: Expr) => void): void {
     switch (e.type) {
       case 'add': walk(e.terms, visit); break
       case 'multiply': walk(e.factors, visit); break
-      case 'negate': case 'dividedDifference': case 'evaluateAtOnes': walk([e.arg], visit); break
+      case 'negate': case 'dividedDifference': case 'evaluateAtOnes': case 'integral': case 'coproduct': walk([e.arg], visit); break
+      case 'tensor': walk([e.left, e.right], visit); break
       case 'power': walk([e.base], visit); break
       case 'determinant': walk(e.rows.flat(), visit); break
       default: break

@@ -16,6 +16,7 @@ import {
 } from '../math'
 import { evaluate, permutationOf, type EvaluationEnv } from './evaluate'
 import { INFINITE_WITH_FINITE, toPolynomial, UnsupportedClaimError, type Value } from './values'
+import { compareInRing, isRingClaim } from './grassmannian'
 
 export interface Comparison {
   holds: boolean
@@ -31,6 +32,7 @@ const COMPUTED_LATEX_TERMS = 120
 const INVARIANTS_FIRST_ABOVE = 5000n
 
 export function compareSides(lhs: Expr, rhs: Expr, env: EvaluationEnv): Comparison {
+  if (isRingClaim(lhs, rhs, env.grassmannian)) return compareInRing(lhs, rhs, env, env.grassmannian)
   const early = invariantMismatch(lhs, rhs, env) ?? invariantMismatch(rhs, lhs, env, true)
   if (early) return early
 

@@ -110,11 +110,12 @@ function mismatchMessage(diff: ClaimDiff | null): string {
         const n = total ?? list.length
         if (n > 0) parts.push(`${n} ${word}`)
       }
-      const unit = diff.basis === 'monomial' ? 'term' : diff.basis === 'schubert' ? 'Schubert term' : 'Schur term'
+      const unit = { monomial: 'term', schubert: 'Schubert term', schur: 'Schur term', class: 'class', tensor: 'tensor term' }[diff.basis]
       count(diff.missing, diff.truncated?.missing, `${unit}${(diff.truncated?.missing ?? diff.missing.length) === 1 ? '' : 's'} missing`)
       count(diff.extra, diff.truncated?.extra, `extra ${unit}${(diff.truncated?.extra ?? diff.extra.length) === 1 ? '' : 's'}`)
       count(diff.wrongCoefficient, diff.truncated?.wrongCoefficient, `wrong coefficient${(diff.truncated?.wrongCoefficient ?? diff.wrongCoefficient.length) === 1 ? '' : 's'}`)
-      return `${parts.join(', ')}.`.replace(/^./, c => c.toUpperCase())
+      const counts = `${parts.join(', ')}.`.replace(/^./, c => c.toUpperCase())
+      return diff.notes?.length ? `${counts} ${diff.notes.map(n => `${n}.`).join(' ')}` : counts
     }
   }
 }

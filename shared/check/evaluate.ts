@@ -11,7 +11,7 @@
  * - beta: the β of Grothendieck polynomials (−1 or +1).
  * Everything the manuscript writes explicitly (x_i, y_j, integers) is taken as written.
  */
-import type { Expr, PermutationSpec } from '../types/claims'
+import type { Expr, GrassmannianSetting, PermutationSpec } from '../types/claims'
 import type { ConventionSet } from '../types/conventions'
 import {
   BudgetMeter, completeSymmetric, conjugate, countBumplessPipeDreams, countPipeDreams, countReducedWords, determinant,
@@ -28,6 +28,8 @@ export interface EvaluationEnv {
   conventions: ConventionSet
   meter: BudgetMeter
   memo: EngineMemo
+  /** The claim's Grassmannian (its question's `setting`): classes are compared in check/grassmannian.ts. */
+  grassmannian?: GrassmannianSetting
 }
 
 function remember<T>(env: EvaluationEnv, key: string, compute: () => T): T {

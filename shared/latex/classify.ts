@@ -7,6 +7,12 @@
 import type { ClaimKind, Expr } from '../types/claims'
 
 const KIND_PRIORITY: [Expr['type'] | 'schur-like', ClaimKind][] = [
+  ['coproduct', 'coproduct'],
+  ['tensor', 'coproduct'],
+  ['quantumParameter', 'quantumGrassmannian'],
+  ['integral', 'grassmannian'],
+  ['grassmannianDegree', 'grassmannian'],
+  ['schubertClass', 'grassmannian'],
   ['determinant', 'determinant'],
   ['dividedDifference', 'dividedDifference'],
   ['kostka', 'kostka'],
@@ -41,6 +47,14 @@ export function exprTypes(e: Expr, into = new Set<Expr['type']>()): Set<Expr['ty
       break
     case 'determinant':
       e.rows.forEach(r => r.forEach(t => exprTypes(t, into)))
+      break
+    case 'integral':
+    case 'coproduct':
+      exprTypes(e.arg, into)
+      break
+    case 'tensor':
+      exprTypes(e.left, into)
+      exprTypes(e.right, into)
       break
     default:
       break

@@ -14,11 +14,12 @@
  *   |ν| = |λ| + |μ|; else a Schubert structure constant when all three read as permutations.
  * - An operator ∂_i applies to the rest of its product term: `\partial_1 x_1^2 x_2` is ∂_1(x_1^2 x_2).
  */
-import type { ContextValue, Expr, Partition, PermutationSpec, CountedObject, SymmetricFamily } from '../types/claims'
+import type { ContextValue, Expr, GrassmannianSetting, Partition, PermutationSpec, CountedObject, SymmetricFamily } from '../types/claims'
 import { MATRIX_ENVS, plainText, type MathNode } from './math-tree'
 import type { NotationObject } from './tags'
 import { alphabetOfList, declaredAlphabet, type Alphabet } from './notation/alphabet'
 import { UNREAD_MACRO_PREFIX, unreadMacroReason } from './macros'
+import { readGrassmannianSpace } from './notation/grassmannian'
 
 export class ParseFail extends Error {}
 
@@ -27,6 +28,8 @@ export interface ParseContext {
   notation: ReadonlyMap<string, NotationObject>
   /** The alphabet this claim declares in an argument list (`s_{21}(a,b,c)`), if any. */
   alphabet?: Alphabet
+  /** The Grassmannian the text has named (σ_λ and q are read only inside one). */
+  grassmannian?: GrassmannianSetting
 }
 
 export type SideResult =
@@ -98,7 +101,7 @@ export class SideParser {
   readonly used = new Map<string, ContextValue>()
   private meaningful = false
 
-  constructor(private nodes: MathNode[], readonly ctx: ParseContext) {}
+  constructor(private nodes: MathNode[], public ctx: ParseContext) {}
 
   /** Parse the whole node list as an expression. */
   static parseSide(nodes: MathNode[], ctx: ParseContext): SideResult {
@@ -157,7 +160,7 @@ export class SideParser {
       sign = -1
     }
     for (;;) {
-      const t = this.parseProduct()
+      const t = this.parseTensorTerm()
       terms.push(sign < 0 ? { type: 'negate', arg: t } : t)
       if (isCh(this.peek(), '+')) sign = 1
       else if (isCh(this.peek(), '-')) sign = -1
@@ -170,15 +173,31 @@ export class SideParser {
   private startsFactor(n: MathNode | undefined): boolean {
     if (!n) return false
     if (n.k === 'ch') return !['+', '-', ')', ']', '=', '|', '^', '_', ',', ';'].includes(n.v)
-    if (n.k === 'cs') return n.v !== 'right' && n.v !== 'cdot' && n.v !== 'times' && n.v !== 'rvert' && n.v !== 'rangle'
+    if (n.k === 'cs') return n.v !== 'right' && n.v !== 'cdot' && n.v !== 'times' && n.v !== 'rvert' && n.v !== 'rangle' && n.v !== 'otimes' && !this.isClassProduct(n)
     return true
+  }
+
+  /** `\star` and `\ast` multiply classes in a Grassmannian setting (the quantum product in QH*). */
+  private isClassProduct(n: MathNode | undefined): boolean {
+    return !!this.ctx.grassmannian && (isCs(n, 'star') || isCs(n, 'ast'))
+  }
+
+  /** `a \otimes b`: binds looser than a product, tighter than a sum (`2 s_2 \otimes s_1`). */
+  private parseTensorTerm(): Expr {
+    let t = this.parseProduct()
+    while (isCs(this.peek(), 'otimes')) {
+      this.i++
+      this.recognised = true
+      t = { type: 'tensor', left: t, right: this.parseProduct() }
+    }
+    return t
   }
 
   private parseProduct(): Expr {
     const factors: Expr[] = [this.parseFactor()]
     for (;;) {
       const n = this.peek()
-      if (isCs(n, 'cdot') || isCs(n, 'times') || isCh(n, '*')) {
+      if (isCs(n, 'cdot') || isCs(n, 'times') || isCh(n, '*') || this.isClassProduct(n)) {
         this.i++
         factors.push(this.parseFactor())
       } else if (this.startsFactor(n)) factors.push(this.parseFactor())
@@ -290,6 +309,12 @@ export class SideParser {
           return this.symmetric('powerSum', n)
         case 'c':
           return this.coefficient()
+        case 'q':
+          if (this.ctx.grassmannian?.ring === 'quantum' && !isCh(this.peek(), '_')) {
+            this.meaningful = true
+            return { type: 'quantumParameter' }
+          }
+          break
         case 'C':
           return this.capitalCoefficient()
         case 'K':
@@ -328,6 +353,16 @@ export class SideParser {
         return this.dividedDifference()
       case 'det':
         return this.detOperator()
+      case 'sigma':
+        if (isCh(this.peek(), '_') && !this.ctx.bindings.has('\\sigma')) return this.schubertClass()
+        break
+      case 'int':
+        if (this.integralSpace()) return this.integral()
+        break
+      case 'deg':
+        return this.degreeOfGrassmannian()
+      case 'Delta':
+        return this.coproduct()
     }
     if (n.v.startsWith(UNREAD_MACRO_PREFIX)) throw new ParseFail(unreadMacroReason(n.v.slice(UNREAD_MACRO_PREFIX.length)))
     if (UNSUPPORTED_OPERATORS.has(n.v)) throw new ParseFail(`unsupported notation \\${n.v}`)
@@ -612,6 +647,91 @@ export class SideParser {
     return { type: 'dividedDifference', index, arg }
   }
 
+  /**
+   * σ_λ (`\sigma_{21}`, `\sigma_{(2,1)}`, `\sigma_{2,1}`, `\sigma_\lambda` with λ bound), a class
+   * of the Grassmannian the text named; `\sigma_1^4` is a power. Outside a setting σ_λ is not read.
+   */
+  private schubertClass(): Expr {
+    const setting = this.ctx.grassmannian
+    if (!setting) throw new ParseFail('σ_λ is read only where the text names its Grassmannian (in $H^*(\\mathrm{Gr}(k,n))$) or a tag sets it')
+    const { sub, sup } = this.readScripts()
+    const exponent = sup ? readInteger(sup) : undefined
+    if (sup && exponent === undefined) throw new ParseFail('a superscript on σ_λ other than a power is not read')
+    const partition = readPartition(sub!, this.ctx, this.used)
+    // σ_i(x_1) is a map applied to something (a reflection, a permutation), not a class; a
+    // parenthesis holding classes, σ_1(σ_1 + σ_2), is a product.
+    const paren = this.parenthesised()
+    if (paren && !paren.content.some(m => isCs(m, 'sigma') || isCh(m, 'q'))) throw new ParseFail('σ_λ(…) is a map applied to an argument, not a Schubert class')
+    this.recognised = true
+    this.meaningful = true
+    const cls: Expr = { type: 'schubertClass', partition }
+    return exponent === undefined ? cls : { type: 'power', base: cls, exponent }
+  }
+
+  /** The space of `\int_{\mathrm{Gr}(2,4)}`, `\int_X` (X named the space) or a bare `\int` in a setting. */
+  private integralSpace(): GrassmannianSetting | undefined {
+    const setting = this.ctx.grassmannian
+    if (!isCh(this.peek(), '_')) return isCh(this.peek(), '^') ? undefined : setting && { ...setting, ring: 'cohomology' }
+    const sub = this.peek(1)
+    if (!sub) return undefined
+    const nodes = unwrap(childrenOf(sub))
+    const found = readGrassmannianSpace(nodes, 0, true)
+    if (found && found.end === nodes.length) return { ring: 'cohomology', ...found.space }
+    const name = symbolName(nodes[0])
+    if (nodes.length === 1 && setting?.name !== undefined && name === setting.name) return { ...setting, ring: 'cohomology' }
+    return undefined
+  }
+
+  /** ∫ of the rest of the product term, e.g. `\int_{\mathrm{Gr}(2,4)} \sigma_1^4`. */
+  private integral(): Expr {
+    const space = this.integralSpace()!
+    const written = isCh(this.peek(), '_')
+    if (written) this.i += 2
+    this.recognised = true
+    if (!this.startsFactor(this.peek())) throw new ParseFail('\\int of nothing')
+    const saved = this.ctx
+    this.ctx = { ...saved, grassmannian: space }
+    let arg: Expr
+    try {
+      arg = this.parseProduct()
+    } finally {
+      this.ctx = saved
+    }
+    this.meaningful = true
+    return { type: 'integral', arg, ...(written ? { space: { k: space.k, n: space.n } } : {}) }
+  }
+
+  /** `\deg \mathrm{Gr}(2,4)`, `\deg(\mathrm{Gr}(2,4))`: the degree of the Grassmannian (not of a class). */
+  private degreeOfGrassmannian(): Expr {
+    const paren = isCh(this.peek(), '(')
+    const at = this.i + (paren ? 1 : 0)
+    const found = readGrassmannianSpace(this.nodes, at, true)
+    if (!found || (paren && !isCh(this.nodes[found.end], ')'))) throw new ParseFail('unknown symbol \\deg')
+    this.i = found.end + (paren ? 1 : 0)
+    this.recognised = true
+    this.meaningful = true
+    return { type: 'grassmannianDegree', space: found.space }
+  }
+
+  /** `\Delta(s_{21})`: the coproduct of a symmetric function written without variables. */
+  private coproduct(): Expr {
+    const paren = this.parenthesised()
+    if (!paren) throw new ParseFail('unknown symbol \\Delta')
+    const saved = this.i
+    this.i += paren.length
+    let arg: Expr
+    try {
+      arg = this.sub(paren.content)
+    } catch (e) {
+      this.i = saved
+      throw e
+    }
+    if (!isSymmetricFunction(arg)) throw new ParseFail('Δ(…) is read only of symmetric functions written without variables')
+    this.recognised = true
+    this.meaningful = true
+    return { type: 'coproduct', arg }
+  }
+
   private detOperator(): Expr {
     this.recognised = true
     const n = this.peek()
@@ -649,6 +769,19 @@ export class SideParser {
     }
     this.meaningful = true
     return { type: 'determinant', rows }
+  }
+}
+
+/** A symmetric function in the Schur-type bases, without variables: what Δ applies to. */
+function isSymmetricFunction(e: Expr): boolean {
+  switch (e.type) {
+    case 'integer': return true
+    case 'symmetric': return e.variableCount === undefined
+    case 'add': return e.terms.every(isSymmetricFunction)
+    case 'multiply': return e.factors.every(isSymmetricFunction)
+    case 'negate': return isSymmetricFunction(e.arg)
+    case 'power': return isSymmetricFunction(e.base)
+    default: return false
   }
 }
 

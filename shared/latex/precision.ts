@@ -53,7 +53,8 @@ export function isUnboundReason(reason: string): boolean {
   return / is not bound\b/.test(reason)
 }
 
-const isLoneVariable = (e: Expr) => e.type === 'variable'
+/** q counts as a variable here: "put $q = 0$" in a QH* section is a setting. */
+const isLoneVariable = (e: Expr) => e.type === 'variable' || e.type === 'quantumParameter'
 
 /** `x_2 = -y_2`, `q = 0`: one side a lone variable and the other without objects is a substitution. */
 function isSubstitution(lhs: Expr, rhs: Expr): boolean {
@@ -86,7 +87,8 @@ function isTranspositionWord(e: Expr): boolean {
   const factors = e.type === 'multiply' ? e.factors : [e]
   return factors.every(f => {
     const base = f.type === 'power' ? f.base : f
-    return base.type === 'symmetric' && base.family === 'schur' && base.index.length === 1
+    return (base.type === 'symmetric' && base.family === 'schur' && base.index.length === 1)
+      || (base.type === 'schubertClass' && base.partition.length === 1)
   })
 }
 

@@ -6,7 +6,7 @@
  * error claims; only programmer misuse throws.
  */
 import type {
-  Claim, ClaimKind, ContextValue, NotReadMath, ReadFileInfo, ReaderWarning, WarningCode,
+  Claim, ClaimKind, ContextValue, GrassmannianSetting, NotReadMath, ReadFileInfo, ReaderWarning, WarningCode,
 } from '../types/claims'
 import { axisOfConvention, type ConventionAxis, type ConventionId } from '../types/conventions'
 import { positionAt } from './decode'
@@ -17,7 +17,8 @@ import type { NotationObject, TagDirective } from './tags'
 import {
   MathSyntaxError, buildMathTree, renderNodes, spanOf, splitRows, splitStatements, type MathNode, type Statement,
 } from './math-tree'
-import { SideParser, bindableSymbol, readPartition, readPermutation, ParseFail, type SideResult } from './expression'
+import { SideParser, bindableSymbol, readPartition, readPermutation, ParseFail, type ParseContext, type SideResult } from './expression'
+import { isSpaceBinding, proseSaysGrassmannian, settingForClaim, settingInMath, trailingSetting } from './notation/grassmannian'
 import { classifyClaim, containsObject, exprTypes } from './classify'
 import { isDefiningLeadIn, judgeStep, proseBefore, shortReason } from './precision'
 import type { ReaderLimits } from './limits'
@@ -58,6 +59,14 @@ export class ReaderRun {
   private readonly protectedNames = new Set<string>()
   private readonly bindings = new Map<string, ContextValue>()
   private readonly conventions = new Map<ConventionAxis, ConventionId>()
+  /**
+   * Grassmannian named by the text (ends with its environment or section; null when the text named
+   * two, which also hides the tag's) and by a tag (until the next tag).
+   */
+  private textSetting: { setting: GrassmannianSetting | null; depth: number } | undefined
+  private tagSetting: GrassmannianSetting | undefined
+  /** Depth of open non-math environments, for the end of a text setting. */
+  private envDepth = 0
   private readonly budget = { produced: 0 }
   private readonly idCounts = new Map<string, number>()
   private definitionCount = 0
@@ -134,8 +143,13 @@ export class ReaderRun {
             if (arg && arg.v === '{') x.readGroupBody(arg, t)
           }
           this.readRegion(file, x, t, { kind: 'env', name: env }, env !== 'math')
-        }
-      } else if (SECTIONING.has(name)) this.bindings.clear()
+        } else if (env) this.envDepth++
+      } else if (name === 'end') {
+        if (readEnvName(x)) this.endEnvironment()
+      } else if (SECTIONING.has(name)) {
+        this.bindings.clear()
+        this.textSetting = undefined
+      }
       else if (INCLUDES.has(name)) this.include(file, x, t, depth, chain)
       else if (name === 'usepackage' || name === 'RequirePackage') this.usePackage(file, x, t, depth, chain, 'sty')
       else if (name === 'documentclass' || name === 'LoadClass') this.usePackage(file, x, t, depth, chain, 'cls')
@@ -143,8 +157,26 @@ export class ReaderRun {
     applyEvents(Infinity)
   }
 
+  /** A setting made inside an environment ends with it. */
+  private endEnvironment(): void {
+    this.envDepth = Math.max(0, this.envDepth - 1)
+    if (this.textSetting && this.envDepth < this.textSetting.depth) this.textSetting = undefined
+  }
+
+  private get grassmannian(): GrassmannianSetting | undefined {
+    return this.textSetting ? this.textSetting.setting ?? undefined : this.tagSetting
+  }
+
+  private parseContext(): ParseContext {
+    const setting = this.grassmannian
+    return { bindings: this.bindings, notation: this.notation, ...(setting ? { grassmannian: setting } : {}) }
+  }
+
   private applyEvent(d: TagDirective): void {
-    if (d.type === 'set') {
+    if (d.type === 'grassmannian') {
+      this.tagSetting = d.setting ?? undefined
+      this.textSetting = undefined
+    } else if (d.type === 'set') {
       for (const id of d.conventions) this.conventions.set(axisOfConvention(id)!, id)
     } else if (d.type === 'means') {
       this.notation.set(d.macro, d.object)
@@ -334,6 +366,9 @@ export class ReaderRun {
       return
     }
     const rows = splitRows(tree)
+    const named = settingInMath(rows.map(r => r.nodes), proseSaysGrassmannian(proseBefore(region.file.masked, region.pos)))
+      ?? trailingSetting(region.file.masked, region.end)
+    if (named) this.textSetting = { setting: named === 'ambiguous' ? null : named, depth: this.envDepth }
     const regionLabel = region.env && SINGLE_EQUATION_ENVS.has(region.env) ? rows.find(r => r.label)?.label : undefined
     const startLine = positionAt(region.file.starts, region.pos).line
     const definingLeadIn = !region.display && isDefiningLeadIn(proseBefore(region.file.masked, region.pos))
@@ -425,9 +460,11 @@ export class ReaderRun {
 
   private tryBinding(st: Statement): boolean {
     if (st.parts.length !== 2 || st.relations[0]!.rel === 'other') return false
+    // "X = \mathrm{Gr}(3,7)" names the space; analyzeRegion has already made it the setting.
+    if (isSpaceBinding(st.parts)) return true
     const sym = bindableSymbol(st.parts[0]!)
     if (!sym) return false
-    const ctx = { bindings: this.bindings, notation: this.notation }
+    const ctx = this.parseContext()
     try {
       const used = new Map<string, ContextValue>()
       let value: ContextValue
@@ -467,7 +504,7 @@ export class ReaderRun {
     const position = positionAt(file.starts, anchor)
     const endLine = positionAt(file.starts, Math.max(rspan.end - 1, anchor)).line
     const tags = this.tagsFor(file, position.line, endLine, startLine)
-    const ctx = { bindings: this.bindings, notation: this.notation }
+    const ctx = this.parseContext()
     const [l, r] = SideParser.parseEquation(lhs.nodes, rhs.nodes, ctx)
     const claimTag = tags.find(d => d.type === 'claim') as { type: 'claim'; kind?: ClaimKind } | undefined
     const skip = tags.some(d => d.type === 'skip')
@@ -475,6 +512,9 @@ export class ReaderRun {
     if (relation.rel !== '=' && !claimTag) return undefined
     let judgement = judgeStep({ lhs: l, rhs: r, lhsNodes: lhs.nodes, rhsNodes: rhs.nodes, definingLeadIn, inObjectChain: !!chainKind })
     if (relation.rel !== '=') judgement = { type: 'unsupported', reason: `the relation ${relation.name} is not checked; only equalities are` }
+    else if (judgement.type === 'claim' && l.ok && r.ok && settingForClaim(l.expr, r.expr, ctx.grassmannian) === 'mixed') {
+      judgement = { type: 'notRead', reason: 'σ_λ next to polynomials or other objects (a presentation of the ring?) is not read' }
+    }
     if (!claimTag && judgement.type === 'silent') return emitted
     if (!claimTag && judgement.type === 'notRead') {
       const index = this.pushNotRead(file, Math.min(lspan.pos, rspan.pos), Math.max(lspan.end, rspan.end), judgement.reason)
@@ -496,12 +536,14 @@ export class ReaderRun {
       ...(claimTag ? { tagged: true } : {}),
     }
     if (judgement.type === 'claim' && l.ok && r.ok) {
-      const own = classifyClaim(l.expr, r.expr)
+      const found = settingForClaim(l.expr, r.expr, ctx.grassmannian)
+      const setting = found === 'mixed' ? undefined : found
+      const own = setting ? (setting.ring === 'quantum' ? 'quantumGrassmannian' : 'grassmannian') : classifyClaim(l.expr, r.expr)
       // A step of plain numbers ("= 1 + 2") in a chain about ℓ(w) is still about ℓ(w).
       const numbersOnly = own === 'polynomial' && !exprTypes(l.expr).has('variable') && !exprTypes(r.expr).has('variable')
       kind = claimTag?.kind ?? (numbersOnly && chainKind ? chainKind : own)
       this.pushClaim({
-        ...base, kind, status: skip ? 'skipped' : 'ready', question: { type: 'equality', lhs: l.expr, rhs: r.expr },
+        ...base, kind, status: skip ? 'skipped' : 'ready', question: { type: 'equality', lhs: l.expr, rhs: r.expr, ...(setting ? { setting } : {}) },
         ...(skip ? { reason: 'a tag asks to skip this claim' } : {}),
       })
     } else {

@@ -8,11 +8,16 @@
  *   use <convention ids>      conventions for the attached claim(s) only
  *   set <convention ids>      conventions from here to the end of the manuscript
  *   \name means <object>      the macro \name denotes a Schubert-type object or symmetric function
+ *   in Gr(k,n) | in QH Gr(k,n) | in Sym
+ *                             from here on σ_λ are classes of H*(Gr(k,n)) or QH*(Gr(k,n)), until the
+ *                             next such tag ("in Sym" ends it); text naming a Grassmannian overrides
+ *                             it inside its own environment or section
  * A tag at the end of a line attaches to claims on that line; a tag on a line of its own attaches
  * to the next line that is not blank or a comment (and to every claim of a display starting there).
  */
 import { axisOfConvention, type ConventionId } from '../types/conventions'
-import { CLAIM_KINDS, type ClaimKind } from '../types/claims'
+import { CLAIM_KINDS, type ClaimKind, type GrassmannianSetting } from '../types/claims'
+import { settingFromTagWords } from './notation/grassmannian'
 
 /** Objects a macro can be declared to mean. */
 export const NOTATION_OBJECTS = ['schubert', 'grothendieck', 'stanley', 'schur', 'elementary', 'complete', 'monomial', 'powersum'] as const
@@ -24,6 +29,8 @@ export type TagDirective =
   | { type: 'use'; conventions: ConventionId[] }
   | { type: 'set'; conventions: ConventionId[] }
   | { type: 'means'; macro: string; object: NotationObject }
+  /** `in Gr(2,4)`, `in QH Gr(2,5)`; `setting: null` for `in Sym`. */
+  | { type: 'grassmannian'; setting: GrassmannianSetting | null }
 
 export interface ParsedTag {
   directives: TagDirective[]
@@ -47,7 +54,11 @@ export function parseTag(text: string): ParsedTag {
     const head = words[0]
     if (!head) continue
     const lower = head.toLowerCase()
-    if (lower === 'skip' && words.length === 1) directives.push({ type: 'skip' })
+    const ring = lower === 'in' ? settingFromTagWords(part) : undefined
+    if (ring) {
+      if ('error' in ring) errors.push(ring.error)
+      else directives.push({ type: 'grassmannian', setting: ring.setting })
+    } else if (lower === 'skip' && words.length === 1) directives.push({ type: 'skip' })
     else if (lower === 'claim') {
       const kindWord = words[1]
       if (words.length > 2) errors.push(`"claim" takes at most one kind, got "${words.slice(1).join(' ')}"`)

@@ -14,6 +14,8 @@
  *   a list of terms (left = μ, right = ν, coefficient), both orders of a pair listed, sorted by
  *   |μ| descending and then by μ and ν in decreasing lexicographic order.
  * - `maxRows` keeps only ν with at most that many rows (s_ν in finitely many variables).
+ * - Search: row r of an LR tableau holds only letters ≤ r, so letter k must complete row k and no
+ *   row above it is left open; branches that break this are cut at once.
  */
 import { type Partition, type SchurCombination, partitionKey, toPartition } from './symmetric'
 import { InvalidArgumentError } from './errors'
@@ -59,12 +61,14 @@ export function skewSchurExpansion(lambda: readonly number[], mu: readonly numbe
       meter.terms(out.size, 'partitions')
       return
     }
-    if (k > maxRows) return
+    if (k > maxRows || k > rows) return
     const add = new Array<number>(rows).fill(0)
     // The letter k occurs at most as often as k−1 (lattice word), at least once (the filling goes on).
     const rec = (r: number, placed: number, prefixK: number, prefixPrev: number): void => {
       if (r === rows) {
         if (placed === 0) return
+        // Letter k + 1 must complete row k, with at most as many boxes as letter k has.
+        if (k < rows && lam[k]! - shape[k]! - add[k]! > placed) return
         const next = shape.slice()
         for (let i = 0; i < rows; i++) next[i]! += add[i]!
         content.push(placed)
@@ -75,7 +79,12 @@ export function skewSchurExpansion(lambda: readonly number[], mu: readonly numbe
       // Horizontal strip inside λ: row r may not pass the old row r−1 nor λ_r.
       const room = Math.min(lam[r]!, r === 0 ? Infinity : shape[r - 1]!) - shape[r]!
       const most = Math.min(room, cap - placed)
-      for (let a = most; a >= 0; a--) {
+      // Row r (0-based) holds only letters ≤ r + 1 (its largest entry is read right after the
+      // rows above, which hold only smaller letters), so letter k must complete row k − 1 and
+      // cannot go above it: this prunes every filling that could never be finished.
+      const least = r === k - 1 ? lam[r]! - shape[r]! : 0
+      if (r < k - 1 && room > 0) return
+      for (let a = most; a >= least; a--) {
         if (k >= 2 && prefixK + a > prefixPrev) continue
         add[r] = a
         rec(r + 1, placed + a, prefixK + a, prefixPrev + (prev[r] ?? 0))

@@ -70,12 +70,47 @@ export type Expr =
   | { type: 'littlewoodRichardson'; lambda: Partition; mu: Partition; nu: Partition }
   /** Kostka number K_{λμ}: number of semistandard tableaux of shape λ and content μ. */
   | { type: 'kostka'; shape: Partition; content: Partition }
+  /**
+   * The Schubert class σ_λ in H*(Gr(k,n)) or QH*(Gr(k,n)) of the claim's `setting`. `partition`
+   * is λ as written; it may leave the k × (n − k) box (then the class is 0, and a claim that
+   * writes it is told so).
+   */
+  | { type: 'schubertClass'; partition: Partition }
+  /** The quantum parameter q of QH*(Gr(k,n)) (deg q = n). */
+  | { type: 'quantumParameter' }
+  /** ∫_{Gr(k,n)} of a class: its coefficient of the point class. `space` is set when written as a subscript. */
+  | { type: 'integral'; arg: Expr; space?: GrassmannianSpace }
+  /** deg Gr(k,n): the degree of the Grassmannian in its Plücker embedding, ∫σ_1^{k(n−k)}. */
+  | { type: 'grassmannianDegree'; space: GrassmannianSpace }
+  /** a ⊗ b of two symmetric functions (written `s_2\otimes s_1`), an element of Λ ⊗ Λ. */
+  | { type: 'tensor'; left: Expr; right: Expr }
+  /** Δ(f): the coproduct of a symmetric function, Δ(s_λ) = Σ c^λ_{μν} s_μ ⊗ s_ν. */
+  | { type: 'coproduct'; arg: Expr }
+
+/** The Grassmannian Gr(k, n) of k-planes in ℂ^n, as named in the text (1 ≤ k ≤ n − 1). */
+export interface GrassmannianSpace {
+  k: number
+  n: number
+}
+
+/**
+ * Where σ_λ lives, set by the text ("in $H^*(\mathrm{Gr}(2,4))$", "$X = \mathrm{Gr}(3,7)$",
+ * "$QH^*(\mathrm{Gr}(2,5))$") or a tag (`scholium: in Gr(2,4)`): classical cohomology or quantum
+ * cohomology of Gr(k,n).
+ */
+export interface GrassmannianSetting extends GrassmannianSpace {
+  ring: 'cohomology' | 'quantum'
+  /** The letter the text gave the space ("$X = \mathrm{Gr}(3,7)$"), so that ∫_X can be read. */
+  name?: string
+}
 
 /** The question a claim asks: is `lhs` equal to `rhs`? */
 export interface EqualityQuestion {
   type: 'equality'
   lhs: Expr
   rhs: Expr
+  /** Set when the claim is about classes of a Grassmannian: both sides are evaluated in that ring. */
+  setting?: GrassmannianSetting
 }
 
 export type ClaimQuestion = EqualityQuestion
@@ -95,12 +130,15 @@ export type ClaimKind =
   | 'structureConstant'
   | 'littlewoodRichardson'
   | 'kostka'
+  | 'grassmannian'
+  | 'quantumGrassmannian'
+  | 'coproduct'
   | 'unknown'
 
 export const CLAIM_KINDS: readonly ClaimKind[] = [
   'schubert', 'grothendieck', 'stanley', 'symmetricFunction', 'polynomial', 'dividedDifference',
   'determinant', 'specialization', 'length', 'count', 'structureConstant', 'littlewoodRichardson',
-  'kostka', 'unknown',
+  'kostka', 'grassmannian', 'quantumGrassmannian', 'coproduct', 'unknown',
 ]
 
 /**

@@ -34,13 +34,16 @@ export interface DiffWrongCoefficient {
  */
 export type ClaimDiff =
   | {
-    basis: 'monomial' | 'schubert' | 'schur'
+    /** `class`: Schubert classes q^d σ_λ of a Grassmannian; `tensor`: s_μ ⊗ s_ν in Λ ⊗ Λ. */
+    basis: 'monomial' | 'schubert' | 'schur' | 'class' | 'tensor'
     /** Computed but not written in the manuscript. */
     missing: DiffTerm[]
     /** Written in the manuscript but not in the computed value. */
     extra: DiffTerm[]
     wrongCoefficient: DiffWrongCoefficient[]
     truncated?: { missing: number, extra: number, wrongCoefficient: number }
+    /** Sentences that explain the difference, e.g. "σ_{3} is 0 in H^*(Gr(2,4)): (3) does not fit in the 2×2 box". */
+    notes?: string[]
   }
   | { basis: 'number', claimed: string, computed: string }
   /** Found from invariants alone, without expanding (degree, value at (1,…,1), number of terms). */
