@@ -33,9 +33,12 @@ export type ParsedArguments =
   | { command: 'version' }
   | { command: 'problem', message: string }
 
-export const USAGE = `Usage: scholium check <file.tex | folder | file.zip | file.tar.gz> [options]
+export const USAGE = `Usage: scholium check <file.tex | folder | file.zip | file.tar.gz | arxiv:<id>> [options]
 
 Checks the worked examples of a LaTeX manuscript and marks every line that carries a claim.
+
+arxiv:<id> (e.g. arxiv:2401.01234v2, arxiv:math/0601001) fetches the e-print from
+NUXT_ARXIV_BASE_URL (default https://arxiv.org).
 
 Options:
   --format <name>        how to print the report: text (default), json (schema scholium.report/1),
