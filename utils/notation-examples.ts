@@ -4,7 +4,7 @@
  * are ordinary facts of the trade; tests/unit/app/notation-examples.test.ts names a source for each
  * and checks that the reader reads every example as its kind.
  */
-import type { ClaimKind } from '../shared/types/claims'
+import type { ClaimKind } from '#shared/types/claims'
 
 export interface NotationExample {
   /** The math of one claim, without dollars. */

@@ -1,13 +1,14 @@
 /**
  * What the upload form can tell before sending anything: the same rules the server applies
- * (extensions and refusal codes from shared/types/uploads.ts, sizes from server/uploads/limits.ts),
+ * (extensions, refusal codes and sizes from shared/types/uploads.ts),
  * so a refusal is shown inline, file by file, with its reason. The server still decides.
  *
  *   precheckUpload([{ path: 'main.tex', size: 120 }, { path: 'main.aux', size: 80 }])
  *   // → main.tex accepted, main.aux refused with 'file-type'
  */
-import { KNOWN_ARCHIVE_EXTENSIONS, UPLOAD_ARCHIVE_EXTENSIONS, UPLOAD_FILE_EXTENSIONS, type UploadRefusalCode } from '../shared/types/uploads'
-import { MAX_UPLOAD_REQUEST_BYTES, UPLOAD_LIMITS } from '../server/uploads/limits'
+import { KNOWN_ARCHIVE_EXTENSIONS, UPLOAD_ARCHIVE_EXTENSIONS, UPLOAD_FILE_EXTENSIONS, UPLOAD_SIZE_LIMITS as UPLOAD_LIMITS, type UploadRefusalCode } from '#shared/types/uploads'
+
+const MAX_UPLOAD_REQUEST_BYTES = UPLOAD_LIMITS.maxRequestBytes
 
 export interface ChosenFile { path: string, size: number }
 

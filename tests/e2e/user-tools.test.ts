@@ -70,6 +70,7 @@ describe('fetching from arXiv', () => {
 
 /** Drops `files` (path → content) on the page as a folder would arrive: entries walked through webkitGetAsEntry. */
 async function dropFolder(target: Page, folder: string, files: Record<string, string>) {
+  await target.locator('[data-testid="upload-drop"][data-listening="true"]').waitFor()
   await target.evaluate(({ folder, files }) => {
     type Node = { name: string, fullPath: string, isFile: boolean, isDirectory: boolean, file?: (ok: (f: File) => void) => void, createReader?: () => { readEntries: (ok: (e: Node[]) => void) => void } }
     const root: Node & { children: Map<string, Node & { children?: Map<string, unknown> }> } = { name: folder, fullPath: `/${folder}`, isFile: false, isDirectory: true, children: new Map() } as never
