@@ -1,3 +1,4 @@
+import { fileURLToPath } from 'node:url'
 import { defineConfig } from 'vitest/config'
 
 // Three projects so that each layer can be run on its own:
@@ -5,9 +6,12 @@ import { defineConfig } from 'vitest/config'
 //   server  — API tests against the real PostgreSQL, s3rver and the mail fake (scripts/test.sh starts them)
 //   e2e     — browser tests through playwright-core and Debian's chromium against the built server
 export default defineConfig({
+  // The app's alias for shared/, so tests can import the app's utils/ as Nuxt builds them.
+  resolve: { alias: { '#shared': fileURLToPath(new URL('./shared', import.meta.url)) } },
   test: {
     projects: [
       {
+        extends: true,
         test: {
           name: 'unit',
           include: ['tests/unit/**/*.test.ts', 'tests/reference/**/*.test.ts'],

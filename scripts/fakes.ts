@@ -5,9 +5,11 @@
  * - an SMTP server on 127.0.0.1:SMTP_PORT that keeps every message it receives
  *   as a JSON file under MAIL_DIR;
  * - a small read-only HTTP inbox on 127.0.0.1:INBOX_PORT (GET /messages,
- *   GET /messages/:id) that the admin mail page and the tests read.
+ *   GET /messages/:id) that the admin mail page and the tests read;
+ * - an arXiv-style e-print endpoint on 127.0.0.1:ARXIV_PORT (scripts/fake-arxiv.ts), serving
+ *   bundles made from the demo manuscripts under invented identifiers.
  *
- * Pointing Scholium at a real S3 and a real SMTP relay needs none of this.
+ * Pointing Scholium at a real S3, a real SMTP relay and arXiv needs none of this.
  */
 import { createServer } from 'node:http'
 import { mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs'
@@ -17,6 +19,7 @@ import S3rver from 's3rver'
 import { SMTPServer } from 'smtp-server'
 import { simpleParser, type AddressObject } from 'mailparser'
 import type { InboxMessage } from '../shared/types/api'
+import { startFakeArxiv } from './fake-arxiv'
 
 const env = (name: string, fallback: string) => process.env[name] ?? fallback
 const S3_PORT = Number(env('S3_PORT', '4569'))
@@ -25,6 +28,7 @@ const S3_BUCKET = env('S3_BUCKET', 'scholium-sources')
 const SMTP_PORT = Number(env('SMTP_PORT', '2525'))
 const MAIL_DIR = env('MAIL_DIR', 'storage/demo/mail')
 const INBOX_PORT = Number(env('INBOX_PORT', '2526'))
+const ARXIV_PORT = Number(env('ARXIV_PORT', '2527'))
 const HOST = '127.0.0.1'
 
 /** What the inbox serves: the shape the admin page reads, plus the HTML part. */
@@ -101,12 +105,15 @@ async function main() {
     }
     send(404, { error: 'not-found' })
   })
+  // Before the inbox: callers wait for the inbox's port, so everything is up once it answers.
+  const arxiv = await startFakeArxiv(ARXIV_PORT)
   await new Promise<void>(resolve => inbox.listen(INBOX_PORT, HOST, () => resolve()))
 
-  console.log(`fakes ready: s3 http://${HOST}:${S3_PORT} (bucket ${S3_BUCKET}), smtp ${HOST}:${SMTP_PORT}, inbox http://${HOST}:${INBOX_PORT}/messages`)
+  console.log(`fakes ready: s3 http://${HOST}:${S3_PORT} (bucket ${S3_BUCKET}), smtp ${HOST}:${SMTP_PORT}, inbox http://${HOST}:${INBOX_PORT}/messages, arXiv e-prints ${arxiv.url}/e-print/`)
 
   const stop = async () => {
     inbox.close()
+    await arxiv.close()
     smtp.close(() => {})
     await s3.close()
     process.exit(0)

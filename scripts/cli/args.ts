@@ -2,7 +2,7 @@
  * Command-line arguments of `scholium check`, parsed without a library so that every
  * refusal has its own clear message.
  *
- *   scholium check <source> [--format text|json|junit|annotations] [--json] [--convention <id>]… [--main <file>]
+ *   scholium check <source> [--format text|json|junit|annotations] [--json] [--convention <id>]… [--main <file>] [--fix <out.patch>]
  *
  * A parse never throws: it gives either the options or a usage problem (exit code 2).
  */
@@ -23,6 +23,8 @@ export interface CheckCommand {
   main?: string
   /** List the math the reader passed over (text output); its count is always printed. */
   showUnread?: boolean
+  /** Write the suggested corrections to this file as a unified diff (`git apply` reads it). */
+  fix?: string
 }
 
 export type ParsedArguments =
@@ -31,9 +33,12 @@ export type ParsedArguments =
   | { command: 'version' }
   | { command: 'problem', message: string }
 
-export const USAGE = `Usage: scholium check <file.tex | folder | file.zip | file.tar.gz> [options]
+export const USAGE = `Usage: scholium check <file.tex | folder | file.zip | file.tar.gz | arxiv:<id>> [options]
 
 Checks the worked examples of a LaTeX manuscript and marks every line that carries a claim.
+
+arxiv:<id> (e.g. arxiv:2401.01234v2, arxiv:math/0601001) fetches the e-print from
+NUXT_ARXIV_BASE_URL (default https://arxiv.org).
 
 Options:
   --format <name>        how to print the report: text (default), json (schema scholium.report/1),
@@ -43,6 +48,8 @@ Options:
   --convention <ids>     fix conventions instead of inferring them; repeatable, or comma-separated
                          (--convention xy-plus --convention perm-inverse, --convention=xy-plus,perm-inverse)
   --main <file>          the main file inside a folder or archive (default: the one with \\documentclass)
+  --fix <out.patch>      write the corrections Scholium is sure of as a unified diff, one hunk
+                         per corrected claim, paths relative to here (apply with git apply)
   --show-unread          list the math Scholium did not read (its count is always printed; never
                          part of the verdicts or the exit status)
   -h, --help             show this text
@@ -73,6 +80,7 @@ export function parseArguments(argv: readonly string[]): ParsedArguments {
   }
   let main: string | undefined
   let showUnread = false
+  let fix: string | undefined
   let onlyPositional = false
   for (let i = 1; i < argv.length; i++) {
     const arg = argv[i]!
@@ -120,6 +128,12 @@ export function parseArguments(argv: readonly string[]): ParsedArguments {
         main = value
         break
       }
+      case '--fix': {
+        const value = takeValue()
+        if (value === null || value === '') return { command: 'problem', message: '--fix needs a file to write the patch to, e.g. --fix corrections.patch.' }
+        fix = value
+        break
+      }
       case '--show-unread':
         if (inlineValue !== undefined) return { command: 'problem', message: '--show-unread takes no value.' }
         showUnread = true
@@ -139,5 +153,5 @@ export function parseArguments(argv: readonly string[]): ParsedArguments {
     if (previous !== undefined && previous !== id) return { command: 'problem', message: `conventions "${previous}" and "${id}" choose differently on the same axis (${axis}); give one.` }
     fixed[axis] = id as ConventionId
   }
-  return { command: 'check', source: sources[0]!, format: format ?? 'text', fixed: fixed as Partial<ConventionSet>, ...(main !== undefined ? { main } : {}), ...(showUnread ? { showUnread } : {}) }
+  return { command: 'check', source: sources[0]!, format: format ?? 'text', fixed: fixed as Partial<ConventionSet>, ...(main !== undefined ? { main } : {}), ...(showUnread ? { showUnread } : {}), ...(fix !== undefined ? { fix } : {}) }
 }

@@ -5,13 +5,14 @@
  * Exit codes (also in USAGE): 0 all checked claims verified; 1 a mismatch or an error claim;
  * 2 bad command or input; 3 an internal failure.
  */
-import { checkManuscript } from '../../shared/check'
+import { checkManuscript, correctionsPatch } from '../../shared/check'
 import { ENGINE_VERSION } from '../../shared/math'
 import type { Report } from '../../shared/types/report'
 import { parseArguments, USAGE, type CheckCommand } from './args'
 import { painter, renderReport } from './render'
 import { prefixer, renderAnnotations, renderJunit } from './ci-formats'
 import { readSource, SourceProblem, type SourceFiles } from './sources'
+import { writeFile } from 'node:fs/promises'
 
 export const EXIT = { ok: 0, failed: 1, badInput: 2, internal: 3 } as const
 
@@ -60,6 +61,18 @@ async function runCheck(command: CheckCommand, io: CliIo): Promise<number> {
   withSkippedFiles(report, source.skipped)
   if (source.main !== undefined && report.warnings.some(w => w.code === 'missing-file')) {
     report.warnings.push({ code: 'single-file', message: `${command.source} was read alone; to include the files it inputs, check its folder instead.` })
+  }
+  if (command.fix !== undefined) {
+    const fixed = report.claims.filter(c => c.correction?.fixed).length
+    const unfixed = report.claims.filter(c => c.correction && !c.correction.fixed).length
+    try {
+      await writeFile(command.fix, correctionsPatch(report.claims, prefixer(command.source, source)))
+    }
+    catch (error) {
+      io.err(`scholium: --fix ${command.fix}: cannot be written (${(error as NodeJS.ErrnoException).code ?? (error as Error).message}).\n`)
+      return EXIT.badInput
+    }
+    io.err(`scholium: ${command.fix}: ${fixed} correction${fixed === 1 ? '' : 's'} written${unfixed ? `; ${unfixed} mismatch${unfixed === 1 ? '' : 'es'} with no automatic correction (see the report)` : ''}.\n`)
   }
   io.out(formatReport(report, command, source, io.colour))
   return report.summary.mismatch > 0 || report.summary.error > 0 ? EXIT.failed : EXIT.ok

@@ -103,6 +103,8 @@ function renderClaim(claim: ReportClaim, width: number, paint: Paint): string[] 
   if (claim.verdict === 'mismatch') {
     out.push(...renderDiff(claim.diff, indent, paint))
     if (claim.computed !== null && claim.diff?.basis !== 'number') out.push(paint('quiet', `${indent}computed: ${shorten(claim.computed, COMPUTED_WIDTH)}`))
+    if (claim.correction?.fixed) out.push(`${indent}corrected: ${paint('good', shorten(claim.correction.statement, COMPUTED_WIDTH))}`)
+    else if (claim.correction) out.push(paint('quiet', `${indent}no automatic correction: ${claim.correction.reason}`))
   }
   return out
 }

@@ -10,6 +10,7 @@
 import { lstat, readdir, readFile, realpath, stat } from 'node:fs/promises'
 import { basename, isAbsolute, join, relative, sep } from 'node:path'
 import { archiveKindOf, readUploadBundle, UploadRefusedError, type BundleFile } from '../../server/uploads'
+import { ArxivClient, ArxivError } from '../../server/arxiv/client'
 import { KNOWN_ARCHIVE_EXTENSIONS, UPLOAD_ARCHIVE_EXTENSIONS, UPLOAD_FILE_EXTENSIONS } from '../../shared/types/uploads'
 
 export interface SourceFiles {
@@ -30,8 +31,9 @@ export class SourceProblem extends Error {
 /** Archives recognised but not unpacked, so that the message can say which ones are. */
 const OTHER_ARCHIVES = KNOWN_ARCHIVE_EXTENSIONS.filter(ext => !UPLOAD_ARCHIVE_EXTENSIONS.includes(ext))
 
-/** Read `source` (a path as given on the command line). Throws SourceProblem on bad input. */
+/** Read `source` (a path as given on the command line, or `arxiv:<id>`). Throws SourceProblem on bad input. */
 export async function readSource(source: string): Promise<SourceFiles> {
+  if (/^arxiv:/i.test(source)) return readArxiv(source)
   const info = await stat(source).catch((error: NodeJS.ErrnoException) => {
     throw new SourceProblem(error.code === 'ENOENT' ? `${source}: no such file or folder.` : `${source}: cannot be read (${error.code ?? error.message}).`)
   })
@@ -97,4 +99,26 @@ function isAcceptedFile(name: string): boolean {
   const lower = name.toLowerCase()
   const dot = lower.lastIndexOf('.')
   return dot > 0 && UPLOAD_FILE_EXTENSIONS.includes(lower.slice(dot))
+}
+
+/**
+ * `arxiv:<id>`: the e-print from NUXT_ARXIV_BASE_URL (default https://arxiv.org), read like an
+ * uploaded file. Files are named as inside the e-print.
+ */
+async function readArxiv(source: string): Promise<SourceFiles> {
+  const client = new ArxivClient({
+    baseUrl: process.env.NUXT_ARXIV_BASE_URL || 'https://arxiv.org',
+    userAgent: 'scholium-cli/0.1 (checks worked examples in manuscripts)',
+    maxWaitMs: 30_000,
+  })
+  try {
+    const eprint = await client.fetchEprint(source.slice('arxiv:'.length))
+    const { files } = await readUploadBundle([{ filename: eprint.filename, data: eprint.data }])
+    return { files, skipped: [], ...(eprint.kind === 'tex' ? { main: files[0]?.path } : {}), origin: 'archive' }
+  }
+  catch (error) {
+    if (error instanceof ArxivError) throw new SourceProblem(`${source}: ${error.message} (${error.code}).`)
+    if (error instanceof UploadRefusedError) throw new SourceProblem(`${source}: ${error.message} (${error.code})`)
+    throw error
+  }
 }

@@ -15,5 +15,7 @@ export const LOCAL_DEFAULTS = {
   },
   smtp: { host: '127.0.0.1', port: 2525, secure: false, user: '', pass: '', from: 'Scholium <no-reply@scholium.local>' },
   mailInboxUrl: 'http://127.0.0.1:2526',
+  /** The e-print endpoint (`/e-print/<id>` is appended): the fake on loopback; https://arxiv.org in production. */
+  arxivBaseUrl: 'http://127.0.0.1:2527',
   publicBaseUrl: 'http://127.0.0.1:3000',
 }

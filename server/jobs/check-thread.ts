@@ -7,7 +7,7 @@
  */
 import type { MessagePort } from 'node:worker_threads'
 import { readManuscript } from '../../shared/latex'
-import { assembleReport, evaluateClaims } from '../../shared/check'
+import { assembleReport, evaluateClaims, withCorrections } from '../../shared/check'
 import type { ConventionSet } from '../../shared/types/conventions'
 import type { Report } from '../../shared/types/report'
 
@@ -41,7 +41,10 @@ export default function checkInThread(task: CheckTask): CheckThreadResult {
     },
   })
   const checkMs = performance.now() - started - readMs
-  const report = assembleReport(read, evaluations, { fixed: task.fixed, durationMs: performance.now() - started, hashes: task.hashes })
+  const report = withCorrections(
+    assembleReport(read, evaluations, { fixed: task.fixed, durationMs: performance.now() - started, hashes: task.hashes }),
+    read, task.files, { main: task.main },
+  )
   task.progress?.close()
   return { report, timings: { readMs: Math.round(readMs), checkMs: Math.round(checkMs) } }
 }

@@ -3,7 +3,7 @@ import type { Db } from '../database/connect'
 import type { Report, ReportClaim } from '#shared/types/report'
 
 /** What a claim row keeps beyond its columns. */
-type ClaimDetails = Pick<ReportClaim, 'id' | 'diff' | 'message' | 'conventions' | 'breaksPaperConvention' | 'permutations' | 'skipped'>
+type ClaimDetails = Pick<ReportClaim, 'id' | 'diff' | 'message' | 'conventions' | 'breaksPaperConvention' | 'permutations' | 'skipped' | 'correction'>
 
 /** A claim's identity across revisions: its kind and normalised source, not its line. */
 export function claimContentKey(claim: Pick<ReportClaim, 'kind' | 'source'>): string {
@@ -23,6 +23,7 @@ export async function replaceRunClaims(db: Db, checkRunId: string, claims: reado
         id: c.id, diff: c.diff, message: c.message, conventions: c.conventions, permutations: c.permutations,
         ...(c.breaksPaperConvention ? { breaksPaperConvention: c.breaksPaperConvention } : {}),
         ...(c.skipped ? { skipped: true } : {}),
+        ...(c.correction ? { correction: c.correction } : {}),
       }
       return {
         check_run_id: checkRunId,
@@ -71,6 +72,7 @@ export async function loadRunReport(db: Db, checkRunId: string): Promise<Report 
         ...(d.breaksPaperConvention ? { breaksPaperConvention: d.breaksPaperConvention } : {}),
         permutations: d.permutations,
         ...(d.skipped ? { skipped: true as const } : {}),
+        ...(d.correction ? { correction: d.correction } : {}),
       }
     }),
   }

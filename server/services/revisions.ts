@@ -58,7 +58,8 @@ export async function createRevision(db: Db, input: { manuscriptId: string, user
   return { id: result.revision.id, number: result.revision.number, checkRunId: result.checkRunId, files: stored.map(f => ({ path: f.path, sha256: f.sha256, sizeBytes: f.sizeBytes })) }
 }
 
-async function readOrRefuse(parts: UploadedFile[]): Promise<BundleFile[]> {
+/** Reads and validates uploaded files; a refusal is a 422 with its code. Exported so a caller can refuse before creating anything. */
+export async function readOrRefuse(parts: UploadedFile[]): Promise<BundleFile[]> {
   try {
     return await readUploadedFiles(parts)
   }

@@ -1,5 +1,5 @@
 /** Limits applied while receiving and reading an upload. */
-import { UPLOAD_FILE_EXTENSIONS } from '../../shared/types/uploads'
+import { UPLOAD_FILE_EXTENSIONS, UPLOAD_SIZE_LIMITS } from '../../shared/types/uploads'
 
 export interface UploadLimits {
   /** Sum of the sizes of all kept files, after unpacking. */
@@ -27,14 +27,14 @@ export const MiB = 1024 * 1024
 
 /** Default limits, e.g. `readUploadedFiles(uploads, { ...UPLOAD_LIMITS, maxFiles: 50 })`. */
 export const UPLOAD_LIMITS: Readonly<UploadLimits> = Object.freeze({
-  maxTotalBytes: 50 * MiB,
-  maxFiles: 500,
+  maxTotalBytes: UPLOAD_SIZE_LIMITS.maxTotalBytes,
+  maxFiles: UPLOAD_SIZE_LIMITS.maxFiles,
   maxEntries: 2000,
-  maxFileBytes: 20 * MiB,
+  maxFileBytes: UPLOAD_SIZE_LIMITS.maxFileBytes,
   maxCompressionRatio: 100,
   compressionRatioGraceBytes: 1 * MiB,
   maxPathLength: 255,
-  maxPathDepth: 10,
+  maxPathDepth: UPLOAD_SIZE_LIMITS.maxPathDepth,
   allowedExtensions: UPLOAD_FILE_EXTENSIONS,
 })
 
@@ -42,4 +42,4 @@ export const UPLOAD_LIMITS: Readonly<UploadLimits> = Object.freeze({
  * The most bytes of a multipart request body that are read, counted on the stream whatever
  * Content-Length says: the files' limit plus room for the form's own framing.
  */
-export const MAX_UPLOAD_REQUEST_BYTES = 60 * MiB
+export const MAX_UPLOAD_REQUEST_BYTES = UPLOAD_SIZE_LIMITS.maxRequestBytes

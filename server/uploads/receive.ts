@@ -59,6 +59,9 @@ export async function receiveMultipartUpload(req: IncomingMessage, options: Rece
   try {
     parser = busboy({
       headers: req.headers,
+      // A dropped folder sends each file under its path inside the folder ("sections/one.tex");
+      // the path is checked like an archive entry's when the files are read (paths.ts).
+      preservePath: true,
       limits: { files: options.maxFiles, fields: 20, fieldSize: options.maxFieldBytes, parts: options.maxFiles + 20 },
     })
   }

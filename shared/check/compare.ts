@@ -117,7 +117,7 @@ function isSchubertProduct(expr: Expr): boolean {
  * Σ c_w S_w as written (single Schubert polynomials with integer coefficients), or null.
  * `expansion`: the left side is a product, so even a lone S_w is an expansion to compare in the basis.
  */
-function writtenSchubertCombination(expr: Expr, env: EvaluationEnv, expansion = false): SchubertCombination | null {
+export function writtenSchubertCombination(expr: Expr, env: EvaluationEnv, expansion = false): SchubertCombination | null {
   const out: SchubertCombination = new Map()
   const addTerm = (term: Expr, sign: number): boolean => {
     if (term.type === 'negate') return addTerm(term.arg, -sign)
@@ -175,11 +175,11 @@ function combinationComparison(computed: Map<string, Coefficient>, claimed: Map<
   }
 }
 
-function schubertTermLatex(key: string): string {
+export function schubertTermLatex(key: string): string {
   return `\\mathfrak{S}_{${oneLineLatex(key === '' ? [1] : key.split(',').map(Number))}}`
 }
 
-function schurTermLatex(key: string): string {
+export function schurTermLatex(key: string): string {
   const parts = partitionFromKey(key)
   return parts.length === 0 ? '1' : `s_{${parts.some(p => p > 9) ? parts.join(',') : parts.join('')}}`
 }

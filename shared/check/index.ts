@@ -16,10 +16,12 @@ import { evaluateClaim, type ClaimEvaluation } from './claim'
 import { decideClaim, inferConventions } from './decide'
 import type { EngineMemo } from './evaluate'
 import { reproduceScript } from './reproduce'
+import { withCorrections } from './correction'
 
 export { evaluateClaim, type ClaimEvaluation } from './claim'
 export { inferConventions, decideClaim } from './decide'
 export type { EngineMemo } from './evaluate'
+export { withCorrections, correctionsPatch } from './correction'
 
 export interface CheckOptions {
   /** Conventions fixed from outside (manuscript setting, command line); tags on a claim still win. */
@@ -82,7 +84,8 @@ export function checkManuscript(input: { files: Record<string, string | Uint8Arr
   const started = performance.now()
   const read = readManuscript({ files: input.files, main: input.main })
   const evaluations = evaluateClaims(read, options)
-  return assembleReport(read, evaluations, { fixed: options.fixed, durationMs: performance.now() - started, hashes: input.hashes })
+  const report = assembleReport(read, evaluations, { fixed: options.fixed, durationMs: performance.now() - started, hashes: input.hashes })
+  return withCorrections(report, read, input.files, { main: input.main })
 }
 
 export { REFERENCE_CONVENTIONS }

@@ -27,6 +27,17 @@ export type ApiErrorCode =
   | 'cross-site-request'
   | 'manuscript-submitted'
   | 'referee-of-manuscript'
+  | ArxivFetchErrorCode
+
+/** Why a "Fetch from arXiv" failed (server/arxiv/client.ts); nothing is stored when it does. */
+export type ArxivFetchErrorCode =
+  | 'arxiv-invalid-id'
+  | 'arxiv-not-found'
+  | 'arxiv-pdf-only'
+  | 'arxiv-rate-limited'
+  | 'arxiv-unavailable'
+  | 'arxiv-unreadable'
+  | 'arxiv-too-large'
 
 export interface ApiErrorData {
   code: ApiErrorCode

@@ -85,7 +85,36 @@ export interface ReportClaim {
    * script that recomputes both sides from the definitions and prints "matches" or the difference.
    */
   reproduce?: string
+  /** For a mismatch: the corrected statement in the paper's own notation, or why there is none. */
+  correction?: ClaimCorrection
 }
+
+/**
+ * A suggested correction of a mismatched claim (shared/check/correction.ts). Only a correction that
+ * was re-read and re-checked as verified is `fixed`; anything less certain says why it is not.
+ */
+export type ClaimCorrection =
+  | {
+    fixed: true
+    /** The corrected claim as written in the paper's own macros, e.g. `\\Sch{132} = x_1 + x_2`. */
+    statement: string
+    /** Set when the claim as written holds under another convention: it was rewritten in the paper's. */
+    note?: string
+    file: string
+    /** 1-based line of `file` that changes. */
+    line: number
+    /** The whole line before and after the correction, each with its own line ending removed. */
+    before: string
+    after: string
+    /** Up to three unchanged lines either side, for the patch's context, each ending in CR if it does in the file. */
+    above: string[]
+    below: string[]
+    /** The line ends with CR LF in the file. */
+    crlf?: true
+    /** The file's last line (within `below`, or the changed line itself) has no line ending. */
+    noNewlineAtEnd?: true
+  }
+  | { fixed: false, reason: string }
 
 export interface ConventionReport {
   /** What the paper's own claims suggest, axis by axis (only axes with evidence). */

@@ -56,3 +56,20 @@ export const KNOWN_ARCHIVE_EXTENSIONS: readonly string[] = Object.freeze([
 
 /** The `accept` attribute of a file input: every accepted file and archive type. */
 export const UPLOAD_ACCEPT_ATTRIBUTE = [...UPLOAD_FILE_EXTENSIONS, ...UPLOAD_ARCHIVE_EXTENSIONS].join(',')
+
+/**
+ * Sizes and counts the upload reader enforces (server/uploads/limits.ts builds UPLOAD_LIMITS from
+ * these), declared here so the upload form can refuse the same things before sending them.
+ */
+export const UPLOAD_SIZE_LIMITS = Object.freeze({
+  /** Sum of the sizes of all kept files, after unpacking. */
+  maxTotalBytes: 50 * 1024 * 1024,
+  /** Number of kept files. */
+  maxFiles: 500,
+  /** Size of one file, after unpacking. */
+  maxFileBytes: 20 * 1024 * 1024,
+  /** Segments of a path, file name included. */
+  maxPathDepth: 10,
+  /** Bytes of a multipart request body: the files' limit plus room for the form's framing. */
+  maxRequestBytes: 60 * 1024 * 1024,
+})
