@@ -53,12 +53,12 @@ fi
 export NUXT_PUBLIC_BASE_URL="${NUXT_PUBLIC_BASE_URL:-http://127.0.0.1:$APP_PORT}"
 
 npx tsx scripts/migrate.ts
-ensure_build || die "the build failed"
+ensure_build "$PROFILE" || die "the build failed"
 
 node --import tsx scripts/worker.ts &
 PIDS+=($!)
 log "serving on http://127.0.0.1:$APP_PORT"
-HOST=127.0.0.1 PORT="$APP_PORT" SCHOLIUM_SEED_DEMO=1 node .output/server/index.mjs &
+HOST=127.0.0.1 PORT="$APP_PORT" SCHOLIUM_SEED_DEMO=1 node "$SCHOLIUM_OUTPUT_DIR/server/index.mjs" &
 PIDS+=($!)
 for _ in $(seq 1 300); do
   state="$(curl -fsS "http://127.0.0.1:$APP_PORT/api/health" 2>/dev/null | sed -n 's/.*"demo":"\([a-z]*\)".*/\1/p' || true)"
