@@ -2,6 +2,7 @@
 # npm start: the whole product with demo data on http://127.0.0.1:3000.
 # Installs what is missing, starts a private PostgreSQL cluster, s3rver and the
 # mail fake on loopback, migrates, builds, seeds the demo and serves the app.
+# The web server and the workers are supervised: one that dies is started again (logged).
 # Ctrl-C stops everything; the data under storage/demo survives for next time.
 set -euo pipefail
 source "$(dirname "${BASH_SOURCE[0]}")/lib/provision.sh"
@@ -55,10 +56,11 @@ export NUXT_PUBLIC_BASE_URL="${NUXT_PUBLIC_BASE_URL:-http://127.0.0.1:$APP_PORT}
 npx tsx scripts/migrate.ts
 ensure_build "$PROFILE" || die "the build failed"
 
-node --import tsx scripts/worker.ts &
-PIDS+=($!)
+# The web server and the check workers run under scripts/supervise.ts, which starts again
+# any of them that dies, with a back-off, and logs it. SCHOLIUM_WORKERS sets how many workers.
 log "serving on http://127.0.0.1:$APP_PORT"
-HOST=127.0.0.1 PORT="$APP_PORT" SCHOLIUM_SEED_DEMO=1 node "$SCHOLIUM_OUTPUT_DIR/server/index.mjs" &
+HOST=127.0.0.1 PORT="$APP_PORT" SCHOLIUM_SEED_DEMO=1 node --import tsx scripts/supervise.ts \
+  --web "$SCHOLIUM_OUTPUT_DIR" --workers "${SCHOLIUM_WORKERS:-1}" &
 PIDS+=($!)
 for _ in $(seq 1 300); do
   state="$(curl -fsS "http://127.0.0.1:$APP_PORT/api/health" 2>/dev/null | sed -n 's/.*"demo":"\([a-z]*\)".*/\1/p' || true)"

@@ -78,7 +78,9 @@ if [ "$(cat "$RESULTS/step-build")" = pass ]; then
   HOST=127.0.0.1 PORT="$APP_PORT" SCHOLIUM_SEED_DEMO=1 node "$OUTPUT_DIR/server/index.mjs" > "$RESULTS/app.log" 2>&1 &
   PIDS+=($!)
   # A short lease, so the test that kills a worker sees the run picked up again within seconds.
-  SCHOLIUM_LEASE_SECONDS=3 node --import tsx scripts/worker.ts > "$RESULTS/worker.log" 2>&1 &
+  # The worker runs under npm start's supervisor (tests/server/supervision.test.ts kills it);
+  # the web server does not, so a crash in it fails the tests instead of being restarted away.
+  SCHOLIUM_LEASE_SECONDS=3 node --import tsx scripts/supervise.ts --workers 1 > "$RESULTS/worker.log" 2>&1 &
   PIDS+=($!)
   ready=0
   for _ in $(seq 1 300); do
