@@ -18,6 +18,7 @@ import { workerSettingsFromEnv } from '../server/jobs/worker-settings'
 import { createMailSender, smtpSettingsFromEnv } from '../server/mail/transport'
 import { checkMailSettingsFromEnv, mailIfLongRun } from '../server/mail/check-finished'
 import { HEARTBEAT_SECONDS, recordHeartbeat, removeHeartbeat } from '../server/repositories/workers'
+import { sweepUnreferencedSources } from '../server/services/storage-sweep'
 
 const settings = workerSettingsFromEnv()
 const workerId = `${hostname()}:${process.pid}:${randomUUID().slice(0, 8)}`
@@ -80,6 +81,13 @@ const heartbeat = setInterval(() => {
   recordHeartbeat(db, beat).catch(error => console.error('[worker] heartbeat failed', error))
 }, HEARTBEAT_SECONDS * 1000)
 
+// Sources no revision references any more; every worker may sweep, removal is idempotent.
+const storageSweeper = setInterval(() => {
+  sweepUnreferencedSources(db, store, { graceSeconds: settings.storageSweepGraceSeconds })
+    .then(swept => console.log(`[worker] storage sweep: ${swept.removed.length} removed, ${swept.young} too young, ${swept.referenced} in use`))
+    .catch(error => console.error('[worker] storage sweep failed', error))
+}, settings.storageSweepIntervalMs)
+
 // Jobs lost while no worker ran (e.g. a reset queue) are covered by re-sending what waits.
 await resendQueuedRuns(db, boss)
 const sweeper = setInterval(() => {
@@ -93,6 +101,7 @@ async function stop() {
   if (stopping) return
   stopping = true
   clearInterval(sweeper)
+  clearInterval(storageSweeper)
   clearInterval(heartbeat)
   await removeHeartbeat(db, workerId).catch(() => {})
   await boss.stop({ graceful: true, timeout: 10_000 })
