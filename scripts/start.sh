@@ -24,7 +24,11 @@ cleanup() {
   pg_stop "$PG_DATA"
   log "stopped; data kept under storage/$PROFILE"
 }
-trap cleanup INT TERM EXIT
+# A signal ends the script after cleaning up; without the exit, bash would go on with the
+# next line of the script once the trap returned (and start the app on a stopped database).
+trap 'cleanup; exit 130' INT
+trap 'cleanup; exit 143' TERM
+trap cleanup EXIT
 
 ensure_apt postgresql
 ensure_node_modules

@@ -28,7 +28,10 @@ cleanup() {
   for pid in "${PIDS[@]}"; do wait "$pid" 2>/dev/null || true; done
   pg_stop "$PG_DATA"
 }
-trap cleanup INT TERM EXIT
+# A signal ends the script after cleaning up (without the exit, bash would carry on with the next step).
+trap 'cleanup; exit 130' INT
+trap 'cleanup; exit 143' TERM
+trap cleanup EXIT
 
 ensure_apt postgresql chromium lrcalc python3-sympy
 ensure_node_modules || die "npm ci failed"
