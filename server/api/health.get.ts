@@ -23,16 +23,28 @@ async function probe(check: () => Promise<unknown>, timeoutMs = 2000): Promise<P
   }
 }
 
+// S3 and the mail relay are asked at most every few seconds, however often health is polled
+// (start scripts poll it five times a second; a relay handshake costs tens of milliseconds).
+const REMOTE_PROBE_TTL_MS = 5000
+const remembered = new Map<string, { at: number, result: Promise<Probe> }>()
+function probeRemembered(name: string, check: () => Promise<unknown>): Promise<Probe> {
+  const last = remembered.get(name)
+  if (last && Date.now() - last.at < REMOTE_PROBE_TTL_MS) return last.result
+  const result = probe(check)
+  remembered.set(name, { at: Date.now(), result })
+  return result
+}
+
 /**
  * Health of the parts checking depends on: database, S3, the mail relay, the check queue's
  * depth and the live check workers (server/repositories/workers.ts). Public, for scripts and
  * monitors (and the demo seed's state); the site admin also gets each worker's host and pid.
- * 503 when the database does not answer; otherwise 200, with `ok` false while any part is down
+ * S3 and mail answers may be up to 5 s old. 503 when the database does not answer; otherwise 200, with `ok` false while any part is down
  * or no worker is alive.
  */
 export default defineEventHandler(async (event) => {
   const db = useDb()
-  const [database, storage, mail] = await Promise.all([probe(() => sql`select 1`.execute(db)), probe(pingStorage), probe(pingMailRelay)])
+  const [database, storage, mail] = await Promise.all([probe(() => sql`select 1`.execute(db)), probeRemembered('storage', pingStorage), probeRemembered('mail', pingMailRelay)])
   if (!database.ok) {
     setResponseStatus(event, 503)
     return { ok: false, demo: demoSeed.state, database, storage, mail, queue: null, workers: null }
