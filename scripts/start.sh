@@ -2,6 +2,7 @@
 # npm start: the whole product with demo data on http://127.0.0.1:3000.
 # Installs what is missing, starts a private PostgreSQL cluster, s3rver and the
 # mail fake on loopback, migrates, builds, seeds the demo and serves the app.
+# The web server and the workers are supervised: one that dies is started again (logged).
 # Ctrl-C stops everything; the data under storage/demo survives for next time.
 set -euo pipefail
 source "$(dirname "${BASH_SOURCE[0]}")/lib/provision.sh"
@@ -24,7 +25,11 @@ cleanup() {
   pg_stop "$PG_DATA"
   log "stopped; data kept under storage/$PROFILE"
 }
-trap cleanup INT TERM EXIT
+# A signal ends the script after cleaning up; without the exit, bash would go on with the
+# next line of the script once the trap returned (and start the app on a stopped database).
+trap 'cleanup; exit 130' INT
+trap 'cleanup; exit 143' TERM
+trap cleanup EXIT
 
 ensure_apt postgresql
 ensure_node_modules
@@ -55,12 +60,13 @@ fi
 export NUXT_PUBLIC_BASE_URL="${NUXT_PUBLIC_BASE_URL:-http://127.0.0.1:$APP_PORT}"
 
 npx tsx scripts/migrate.ts
-ensure_build || die "the build failed"
+ensure_build "$PROFILE" || die "the build failed"
 
-node --import tsx scripts/worker.ts &
-PIDS+=($!)
+# The web server and the check workers run under scripts/supervise.ts, which starts again
+# any of them that dies, with a back-off, and logs it. SCHOLIUM_WORKERS sets how many workers.
 log "serving on http://127.0.0.1:$APP_PORT"
-HOST=127.0.0.1 PORT="$APP_PORT" SCHOLIUM_SEED_DEMO=1 node .output/server/index.mjs &
+HOST=127.0.0.1 PORT="$APP_PORT" SCHOLIUM_SEED_DEMO=1 node --import tsx scripts/supervise.ts \
+  --web "$SCHOLIUM_OUTPUT_DIR" --workers "${SCHOLIUM_WORKERS:-1}" &
 PIDS+=($!)
 for _ in $(seq 1 300); do
   state="$(curl -fsS "http://127.0.0.1:$APP_PORT/api/health" 2>/dev/null | sed -n 's/.*"demo":"\([a-z]*\)".*/\1/p' || true)"

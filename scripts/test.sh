@@ -14,10 +14,6 @@ started_at=$(date +%s)
 # skips lint and typecheck; SCHOLIUM_TEST_FILTER narrows to some test files. CI runs the defaults: everything.
 PROFILE="${SCHOLIUM_TEST_PROFILE:-test}"
 PROJECTS="${SCHOLIUM_TEST_PROJECTS:-unit server e2e}"
-if [ "$PROFILE" != test ]; then
-  export SCHOLIUM_BUILD_DIR="$REPO_ROOT/.cache/$PROFILE-nuxt" SCHOLIUM_OUTPUT_DIR="$REPO_ROOT/.cache/$PROFILE-output"
-fi
-OUTPUT_DIR="${SCHOLIUM_OUTPUT_DIR:-.output}"
 APP_PORT="${SCHOLIUM_TEST_APP_PORT:-3101}"
 PG_PORT="${SCHOLIUM_TEST_PG_PORT:-54339}"
 export S3_PORT="${SCHOLIUM_TEST_S3_PORT:-4579}" SMTP_PORT="${SCHOLIUM_TEST_SMTP_PORT:-2535}" INBOX_PORT="${SCHOLIUM_TEST_INBOX_PORT:-2536}"
@@ -33,7 +29,10 @@ cleanup() {
   for pid in "${PIDS[@]}"; do wait "$pid" 2>/dev/null || true; done
   pg_stop "$PG_DATA"
 }
-trap cleanup INT TERM EXIT
+# A signal ends the script after cleaning up (without the exit, bash would carry on with the next step).
+trap 'cleanup; exit 130' INT
+trap 'cleanup; exit 143' TERM
+trap cleanup EXIT
 
 ensure_apt postgresql chromium lrcalc python3-sympy
 ensure_node_modules || die "npm ci failed"
@@ -73,16 +72,20 @@ suite() {
 
 if [ "${SCHOLIUM_TEST_SKIP_CHECKS:-}" != 1 ]; then
   step lint npx eslint .
-  step typecheck bash -c 'npx nuxt prepare >/dev/null 2>&1 && npm run --silent typecheck'
+  # Types come from .nuxt (tsconfig.json's references), which no build uses (see ensure_build).
+  step typecheck env -u SCHOLIUM_BUILD_DIR -u SCHOLIUM_OUTPUT_DIR bash -c 'npx nuxt prepare >/dev/null 2>&1 && npm run --silent typecheck'
 fi
 suite unit
 
-step build ensure_build
+step build ensure_build "$PROFILE"
+OUTPUT_DIR="$SCHOLIUM_OUTPUT_DIR"
 if [ "$(cat "$RESULTS/step-build")" = pass ]; then
   HOST=127.0.0.1 PORT="$APP_PORT" SCHOLIUM_SEED_DEMO=1 node "$OUTPUT_DIR/server/index.mjs" > "$RESULTS/app.log" 2>&1 &
   PIDS+=($!)
   # A short lease, so the test that kills a worker sees the run picked up again within seconds.
-  SCHOLIUM_LEASE_SECONDS=3 node --import tsx scripts/worker.ts > "$RESULTS/worker.log" 2>&1 &
+  # The worker runs under npm start's supervisor (tests/server/supervision.test.ts kills it);
+  # the web server does not, so a crash in it fails the tests instead of being restarted away.
+  SCHOLIUM_LEASE_SECONDS=3 node --import tsx scripts/supervise.ts --workers 1 > "$RESULTS/worker.log" 2>&1 &
   PIDS+=($!)
   ready=0
   for _ in $(seq 1 300); do

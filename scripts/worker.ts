@@ -17,6 +17,8 @@ import { resendQueuedRuns, runCheck, sweepDueRuns, type CheckRunDeps, type RunSt
 import { workerSettingsFromEnv } from '../server/jobs/worker-settings'
 import { createMailSender, smtpSettingsFromEnv } from '../server/mail/transport'
 import { checkMailSettingsFromEnv, mailIfLongRun } from '../server/mail/check-finished'
+import { HEARTBEAT_SECONDS, recordHeartbeat, removeHeartbeat } from '../server/repositories/workers'
+import { sweepUnreferencedSources } from '../server/services/storage-sweep'
 
 const settings = workerSettingsFromEnv()
 const workerId = `${hostname()}:${process.pid}:${randomUUID().slice(0, 8)}`
@@ -42,7 +44,8 @@ const atStep = haltAt
     await new Promise(() => {})
   }
   : undefined
-const deps: CheckRunDeps = { db, store: createSourceStore(settings.s3), pool, workerId, leaseSeconds: settings.leaseSeconds, runBudgetMs: settings.runBudgetMs, afterFinished, atStep }
+const store = createSourceStore(settings.s3)
+const deps: CheckRunDeps = { db, store, pool, workerId, leaseSeconds: settings.leaseSeconds, runBudgetMs: settings.runBudgetMs, afterFinished, atStep }
 
 const onlyRun = process.argv.indexOf('--run')
 if (onlyRun !== -1) {
@@ -71,6 +74,20 @@ for (let i = 0; i < settings.concurrency; i++) {
   })
 }
 
+// Liveness for /api/health and for runs waiting with no worker (server/repositories/workers.ts).
+const beat = { workerId, host: hostname(), pid: process.pid, concurrency: settings.concurrency }
+await recordHeartbeat(db, beat)
+const heartbeat = setInterval(() => {
+  recordHeartbeat(db, beat).catch(error => console.error('[worker] heartbeat failed', error))
+}, HEARTBEAT_SECONDS * 1000)
+
+// Sources no revision references any more; every worker may sweep, removal is idempotent.
+const storageSweeper = setInterval(() => {
+  sweepUnreferencedSources(db, store, { graceSeconds: settings.storageSweepGraceSeconds })
+    .then(swept => console.log(`[worker] storage sweep: ${swept.removed.length} removed, ${swept.young} too young, ${swept.referenced} in use`))
+    .catch(error => console.error('[worker] storage sweep failed', error))
+}, settings.storageSweepIntervalMs)
+
 // Jobs lost while no worker ran (e.g. a reset queue) are covered by re-sending what waits.
 await resendQueuedRuns(db, boss)
 const sweeper = setInterval(() => {
@@ -84,6 +101,9 @@ async function stop() {
   if (stopping) return
   stopping = true
   clearInterval(sweeper)
+  clearInterval(storageSweeper)
+  clearInterval(heartbeat)
+  await removeHeartbeat(db, workerId).catch(() => {})
   await boss.stop({ graceful: true, timeout: 10_000 })
   await pool.destroy()
   await db.destroy()

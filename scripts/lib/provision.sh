@@ -81,16 +81,29 @@ wait_for_port() {
   done
 }
 
-# Build the app unless its output is newer than every source file.
-# SCHOLIUM_BUILD_DIR / SCHOLIUM_OUTPUT_DIR (used by nuxt.config.ts) move the build elsewhere.
+# ensure_build PROFILE — builds the app for one profile unless its output is newer than every
+# source file, and exports SCHOLIUM_BUILD_DIR / SCHOLIUM_OUTPUT_DIR (read by nuxt.config.ts).
+# Each profile builds in its own folders under .cache/, never in .nuxt: `nuxt prepare` (npm's
+# postinstall, the typecheck step, an editor) empties .nuxt, and doing that while a build sits
+# between its client and server halves is what made a fresh clone's first build fail with
+# "ENOENT .nuxt/dist/client/manifest.json". Builds of the same profile take a lock, so a second
+# one (npm start beside npm test, two terminals) waits and then finds the output fresh.
 ensure_build() {
   cd "$REPO_ROOT"
-  local out="${SCHOLIUM_OUTPUT_DIR:-.output}"
-  if [ -f "$out/server/index.mjs" ] && [ -z "$(find app.vue error.vue nuxt.config.ts tailwind.config.ts package-lock.json \
-      assets components composables layouts middleware pages plugins public server shared stores utils \
-      -newer "$out/server/index.mjs" -print -quit 2>/dev/null)" ]; then
-    return 0
-  fi
-  log "building the app (nuxt build)"
-  npx nuxt build >"$REPO_ROOT/storage/build.log" 2>&1 || { tail -40 "$REPO_ROOT/storage/build.log" >&2; log "nuxt build failed (storage/build.log)"; return 1; }
+  local profile="${1:?ensure_build needs a profile}"
+  export SCHOLIUM_BUILD_DIR="${SCHOLIUM_BUILD_DIR:-$REPO_ROOT/.cache/$profile-nuxt}"
+  export SCHOLIUM_OUTPUT_DIR="${SCHOLIUM_OUTPUT_DIR:-$REPO_ROOT/.cache/$profile-output}"
+  mkdir -p "$REPO_ROOT/.cache" "$REPO_ROOT/storage"
+  local log_file="$REPO_ROOT/storage/build-$profile.log"
+  (
+    flock 9
+    out="$SCHOLIUM_OUTPUT_DIR"
+    if [ -f "$out/server/index.mjs" ] && [ -z "$(find app.vue error.vue nuxt.config.ts tailwind.config.ts package-lock.json \
+        assets components composables layouts middleware pages plugins public server shared stores utils \
+        -newer "$out/server/index.mjs" -print -quit 2>/dev/null)" ]; then
+      exit 0
+    fi
+    log "building the app (nuxt build into ${SCHOLIUM_BUILD_DIR#"$REPO_ROOT"/})"
+    npx nuxt build >"$log_file" 2>&1 || { tail -40 "$log_file" >&2; log "nuxt build failed (${log_file#"$REPO_ROOT"/})"; exit 1; }
+  ) 9>"$REPO_ROOT/.cache/$profile-build.lock"
 }

@@ -33,6 +33,21 @@ export interface SignInFailuresTable {
   failed_at: Timestamp
 }
 
+export interface UserSessionsTable {
+  id: Generated<string>
+  user_id: string
+  created_at: Timestamp
+}
+
+export interface WorkerHeartbeatsTable {
+  worker_id: string
+  host: string
+  pid: number
+  concurrency: number
+  started_at: Timestamp
+  seen_at: Timestamp
+}
+
 export interface VenuesTable {
   id: Generated<string>
   slug: string
@@ -198,6 +213,8 @@ export interface Database {
   users: UsersTable
   sign_in_failures: SignInFailuresTable
   attempt_limits: AttemptLimitsTable
+  user_sessions: UserSessionsTable
+  worker_heartbeats: WorkerHeartbeatsTable
   venues: VenuesTable
   venue_editors: VenueEditorsTable
   manuscripts: ManuscriptsTable

@@ -8,6 +8,9 @@ export interface WorkerSettings {
   concurrency: number
   leaseSeconds: number
   runBudgetMs: number
+  /** How often this worker sweeps unreferenced sources from S3, and how old they must be. */
+  storageSweepIntervalMs: number
+  storageSweepGraceSeconds: number
 }
 
 /** The worker reads the same NUXT_* variables as the web server, with the same local defaults. */
@@ -31,5 +34,7 @@ export function workerSettingsFromEnv(env: NodeJS.ProcessEnv = process.env): Wor
     concurrency: positive('SCHOLIUM_WORKER_CONCURRENCY', 2),
     leaseSeconds: positive('SCHOLIUM_LEASE_SECONDS', 30),
     runBudgetMs: positive('SCHOLIUM_RUN_BUDGET_SECONDS', 120) * 1000,
+    storageSweepIntervalMs: positive('SCHOLIUM_SWEEP_INTERVAL_SECONDS', 6 * 60 * 60) * 1000,
+    storageSweepGraceSeconds: positive('SCHOLIUM_SWEEP_GRACE_SECONDS', 60 * 60),
   }
 }

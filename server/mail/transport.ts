@@ -41,6 +41,24 @@ export function createMailSender(smtp: SmtpSettings): MailSender {
   }
 }
 
+/** A probe for the health route: resolves once the relay greets us and accepts our login, throws otherwise. */
+export function createMailProbe(smtp: SmtpSettings): () => Promise<void> {
+  const secure = isTrue(smtp.secure)
+  const transport = nodemailer.createTransport({
+    host: smtp.host,
+    port: Number(smtp.port),
+    secure,
+    auth: smtp.user ? { user: smtp.user, pass: smtp.pass } : undefined,
+    ignoreTLS: !secure && smtp.host === '127.0.0.1',
+    connectionTimeout: 2000,
+    greetingTimeout: 2000,
+    socketTimeout: 2000,
+  })
+  return async () => {
+    await transport.verify()
+  }
+}
+
 /** The worker's SMTP settings: the NUXT_SMTP_* variables the web server reads, with the same local defaults. */
 export function smtpSettingsFromEnv(env: NodeJS.ProcessEnv = process.env): SmtpSettings {
   const d = LOCAL_DEFAULTS.smtp

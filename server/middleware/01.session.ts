@@ -1,21 +1,22 @@
 import type { H3Event } from 'h3'
-import { findSessionVersion } from '../repositories/users'
+import { findSessionState } from '../repositories/sessions'
 
 const SESSION_COOKIE = 'nuxt-session'
 
 /**
- * Runs before every route. A sealed session carries the user's session version; when
- * users.session_version has moved on (sign-out, sign-out everywhere, password reset) or the
- * account is gone, the session is cleared here, so no route, page or /api/_auth/session
- * ever sees a revoked cookie as signed in.
+ * Runs before every route. A sealed session carries its own id (a user_sessions row) and the
+ * user's session version. When the row is gone (this session signed out), the version has
+ * moved on (sign out everywhere, password reset) or the account is gone, the session is
+ * cleared here, so no route, page or /api/_auth/session ever sees a revoked cookie as signed in.
  */
 export default defineEventHandler(async (event) => {
   secureCookieWhenHttps(event)
   if (event.path.startsWith('/_nuxt/') || !getCookie(event, SESSION_COOKIE)) return
   const session = await getUserSession(event)
   if (!session.user) return
-  const current = await findSessionVersion(useDb(), session.user.id)
-  if (current === undefined || current !== session.sessionVersion) {
+  const sessionId = typeof session.sessionId === 'string' && isUuid(session.sessionId) ? session.sessionId : undefined
+  const state = sessionId ? await findSessionState(useDb(), session.user.id, sessionId) : undefined
+  if (!state || !state.sessionLive || state.sessionVersion !== session.sessionVersion) {
     await clearUserSession(event)
     // h3 reads the session from the request's Cookie header on every call, so the
     // revoked cookie is also taken out of this request: later reads find no session.

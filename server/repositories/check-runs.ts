@@ -138,3 +138,16 @@ export async function listQueuedRuns(db: Db): Promise<string[]> {
   const rows = await db.selectFrom('check_runs').select('id').where('status', '=', 'queued').where('lease_until', 'is', null).orderBy('queued_at').execute()
   return rows.map(r => r.id)
 }
+
+/** The check queue's depth as the run rows tell it: waiting, being checked, and running on a lease that ran out. */
+export async function countUnfinishedRuns(db: Db): Promise<{ waiting: number, running: number, leaseExpired: number }> {
+  const row = await db.selectFrom('check_runs')
+    .select(eb => [
+      eb.fn.countAll<number>().filterWhere('status', '=', 'queued').as('waiting'),
+      eb.fn.countAll<number>().filterWhere(w => w.and([w('status', '=', 'running'), w('lease_until', '>=', sql<Date>`now()`)])).as('running'),
+      eb.fn.countAll<number>().filterWhere(w => w.and([w('status', '=', 'running'), w('lease_until', '<', sql<Date>`now()`)])).as('leaseExpired'),
+    ])
+    .where('status', 'in', ['queued', 'running'])
+    .executeTakeFirstOrThrow()
+  return { waiting: Number(row.waiting), running: Number(row.running), leaseExpired: Number(row.leaseExpired) }
+}

@@ -59,6 +59,26 @@ export async function isStorageKeyReferenced(db: Db, storageKey: string): Promis
   return row !== undefined
 }
 
+/**
+ * Per-object advisory locks between uploads and the storage sweep, held to the end of the
+ * caller's transaction: an upload takes them shared for the objects it is about to reference,
+ * the sweep takes one exclusively before it removes an object (server/services/storage-sweep.ts).
+ */
+export async function lockStorageKeysShared(trx: Db, storageKeys: string[]): Promise<void> {
+  for (const key of [...new Set(storageKeys)].sort()) await sql`select pg_advisory_xact_lock_shared(hashtextextended(${key}, 0))`.execute(trx)
+}
+
+export async function lockStorageKeyExclusive(trx: Db, storageKey: string): Promise<void> {
+  await sql`select pg_advisory_xact_lock(hashtextextended(${storageKey}, 0))`.execute(trx)
+}
+
+/** Which of `storageKeys` some revision file still points at. */
+export async function referencedStorageKeys(db: Db, storageKeys: string[]): Promise<Set<string>> {
+  if (storageKeys.length === 0) return new Set()
+  const rows = await db.selectFrom('revision_files').select('storage_key').distinct().where('storage_key', 'in', storageKeys).execute()
+  return new Set(rows.map(r => r.storage_key))
+}
+
 export async function listRevisionFileKeys(db: Db, revisionId: string) {
   return db.selectFrom('revision_files').select(['path', 'storage_key', 'sha256']).where('revision_id', '=', revisionId).orderBy('path').execute()
 }

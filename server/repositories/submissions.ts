@@ -143,3 +143,19 @@ export async function markSubmissionInReview(db: Db, submissionId: string): Prom
   await db.updateTable('submissions').set({ status: 'in-review', updated_at: new Date() })
     .where('id', '=', submissionId).where('status', '=', 'submitted').execute()
 }
+
+/** A submission of one manuscript, locked for the caller's transaction; undefined when it is not one of its submissions. */
+export async function lockSubmissionOfManuscript(db: Db, submissionId: string, manuscriptId: string) {
+  return db.selectFrom('submissions as s')
+    .innerJoin('revisions as r', 'r.id', 's.revision_id')
+    .select(['s.id', 's.status', 's.venue_id', 'r.number'])
+    .where('s.id', '=', submissionId)
+    .where('r.manuscript_id', '=', manuscriptId)
+    .forUpdate('s')
+    .executeTakeFirst()
+}
+
+/** Marks a submission withdrawn. The row stays: the venue keeps its record and audit trail. */
+export async function markSubmissionWithdrawn(db: Db, submissionId: string): Promise<void> {
+  await db.updateTable('submissions').set({ status: 'withdrawn', updated_at: new Date() }).where('id', '=', submissionId).execute()
+}

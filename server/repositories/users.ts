@@ -59,15 +59,10 @@ export async function clearSignInFailures(db: Db, emailKey: string): Promise<voi
   await db.deleteFrom('sign_in_failures').where('email_key', '=', emailKey).execute()
 }
 
-/** Sets a new password hash and bumps the session version, so every existing session ends. */
+/** Sets a new password hash and bumps the session version, so every existing session ends (their rows go too). */
 export async function updatePasswordHash(db: Db, userId: string, passwordHash: string): Promise<void> {
   await db.updateTable('users').set(eb => ({ password_hash: passwordHash, session_version: eb('session_version', '+', 1) })).where('id', '=', userId).execute()
-}
-
-/** The user's current session version, or undefined when the account is gone. */
-export async function findSessionVersion(db: Db, userId: string): Promise<number | undefined> {
-  const row = await db.selectFrom('users').select('session_version').where('id', '=', userId).executeTakeFirst()
-  return row?.session_version
+  await db.deleteFrom('user_sessions').where('user_id', '=', userId).execute()
 }
 
 /** Bumps the session version: every session sealed with an older one is refused from now on. Returns the new version. */

@@ -25,6 +25,7 @@ import {
   findCheckRun, insertCheckRun, latestRunRowsByRevision, listQueuedRuns, loadRunSources, lockIfLeased, markAttemptFailed,
   markFinished, recordProgress, releaseDueRuns, renewLease, takeLease, type NewCheckRun,
 } from '../repositories/check-runs'
+import { anyLiveWorker } from '../repositories/workers'
 import { CHECK_JOB_OPTIONS, CHECK_QUEUE, type CheckJobData } from '../jobs/queue-names'
 import type { CheckTask, CheckThreadResult } from '../jobs/check-thread'
 
@@ -61,17 +62,20 @@ export async function requestCheckRun(trx: Db, queue: CheckQueue, input: NewChec
 
 /**
  * The status a reader sees. The one place a run's stored state becomes what the UI shows,
- * so states derived from more than the column (a lease with no live worker) go here.
+ * so states derived from more than the column go here: a "running" run whose lease ran out
+ * is not being checked by anyone, it waits to be taken again.
  */
-export function runStatus(row: Pick<CheckRunRow, 'status'>): CheckRunStatus {
+export function runStatus(row: Pick<CheckRunRow, 'status' | 'lease_until'>, now: Date = new Date()): CheckRunStatus {
+  if (row.status === 'running' && row.lease_until !== null && row.lease_until < now) return 'queued'
   return row.status
 }
 
-/** A run row as the API shows it. */
-export function checkRunView(row: CheckRunRow): CheckRunView {
+/** A run row as the API shows it. `liveWorker`: whether any check worker is alive (server/repositories/workers.ts). */
+export function checkRunView(row: CheckRunRow, liveWorker = true): CheckRunView {
+  const status = runStatus(row)
   return {
     id: row.id,
-    status: runStatus(row),
+    status,
     engineVersion: row.engine_version,
     claimsTotal: row.claims_total,
     claimsDone: row.claims_done,
@@ -81,19 +85,26 @@ export function checkRunView(row: CheckRunRow): CheckRunView {
     error: row.error,
     summary: row.summary,
     whatIf: row.what_if,
+    waitingForWorker: status === 'queued' && !liveWorker,
   }
+}
+
+// Worker liveness is looked up only when some run still waits, so finished reports cost no extra query.
+async function liveWorkerFor(db: Db, rows: CheckRunRow[]): Promise<boolean> {
+  return rows.some(r => runStatus(r) === 'queued') ? anyLiveWorker(db) : true
 }
 
 /** The newest run of each revision, as the API shows it. */
 export async function latestRunsByRevision(db: Db, revisionIds: string[]): Promise<Map<string, CheckRunView>> {
   const rows = await latestRunRowsByRevision(db, revisionIds)
-  return new Map(rows.map(r => [r.revision_id, checkRunView(r)]))
+  const live = await liveWorkerFor(db, rows)
+  return new Map(rows.map(r => [r.revision_id, checkRunView(r, live)]))
 }
 
 /** A run's progress and status, or null if there is no such run. */
 export async function checkRunProgress(db: Db, checkRunId: string): Promise<CheckRunView | null> {
   const row = await findCheckRun(db, checkRunId)
-  return row ? checkRunView(row) : null
+  return row ? checkRunView(row, await liveWorkerFor(db, [row])) : null
 }
 
 /** Points where a fault test may stop the worker (scripts/worker.ts, SCHOLIUM_WORKER_HALT_AT). */

@@ -2,6 +2,7 @@ import type { Db } from '../database/connect'
 import type { UploadErrorCode } from '#shared/types/uploads'
 import { insertRevisionWithFiles, isStorageKeyReferenced, type StoredFile } from '../repositories/revisions'
 import { requestCheckRun } from './check-runs'
+import { holdSources } from './storage-sweep'
 import { touchManuscript } from '../repositories/manuscripts'
 import { appendAudit } from '../repositories/audit'
 import { readUploadedFiles, UPLOAD_LIMITS, UploadRefusedError, type BundleFile, type UploadedFile, type UploadRefusalCode } from '../uploads'
@@ -38,6 +39,8 @@ export async function createRevision(db: Db, input: { manuscriptId: string, user
   try {
     const queue = await useQueue()
     result = await db.transaction().execute(async (trx) => {
+      // Against a storage sweep running meanwhile: the objects are locked and known to be there.
+      await holdSources(trx, sourceStore(), stored.map((f, i) => ({ storageKey: f.storageKey, sha256: f.sha256, bytes: files[i]!.bytes })))
       const revision = await insertRevisionWithFiles(trx, { manuscriptId: input.manuscriptId, uploadedBy: input.userId, mainFile, note: input.note, files: stored })
       const run = await requestCheckRun(trx, queue, { revisionId: revision.id, requestedBy: input.userId, conventions: input.conventions })
       await touchManuscript(trx, input.manuscriptId)

@@ -2,7 +2,7 @@
  * Content-addressed source storage on S3, with its configuration passed in, so
  * the web server (runtime config) and the worker process (environment) share it.
  */
-import { DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3'
+import { DeleteObjectCommand, GetObjectCommand, HeadBucketCommand, HeadObjectCommand, ListObjectsV2Command, PutObjectCommand, S3Client } from '@aws-sdk/client-s3'
 
 export interface S3Settings {
   endpoint: string
@@ -17,6 +17,11 @@ export interface SourceStore {
   put(bytes: Uint8Array, sha256: string): Promise<{ key: string, created: boolean }>
   get(key: string): Promise<Uint8Array>
   remove(key: string): Promise<void>
+  exists(key: string): Promise<boolean>
+  /** Every stored object under `prefix`, with when it was last written. */
+  list(prefix: string): AsyncIterable<{ key: string, lastModified: Date }>
+  /** Throws unless the bucket answers (the health route). */
+  ping(): Promise<void>
 }
 
 /** The key is derived from the SHA-256 alone. e.g. `sourceKey('ab12…')` is `sources/sha256/ab/ab12…`. */
@@ -52,6 +57,29 @@ export function createSourceStore(settings: S3Settings): SourceStore {
     },
     async remove(key) {
       await client.send(new DeleteObjectCommand({ Bucket, Key: key }))
+    },
+    async exists(key) {
+      try {
+        await client.send(new HeadObjectCommand({ Bucket, Key: key }))
+        return true
+      }
+      catch (error) {
+        if (isNotFound(error)) return false
+        throw error
+      }
+    },
+    async* list(prefix) {
+      let ContinuationToken: string | undefined
+      do {
+        const page = await client.send(new ListObjectsV2Command({ Bucket, Prefix: prefix, ContinuationToken }))
+        for (const item of page.Contents ?? []) {
+          if (item.Key && item.LastModified) yield { key: item.Key, lastModified: item.LastModified }
+        }
+        ContinuationToken = page.IsTruncated ? page.NextContinuationToken : undefined
+      } while (ContinuationToken)
+    },
+    async ping() {
+      await client.send(new HeadBucketCommand({ Bucket }))
     },
   }
 }

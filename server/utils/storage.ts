@@ -12,3 +12,8 @@ function sources(): SourceStore {
 export const putSource = (bytes: Uint8Array, sha256: string) => sources().put(bytes, sha256)
 export const getSource = (key: string) => sources().get(key)
 export const deleteSource = (key: string) => sources().remove(key)
+/** The store itself, for services that take a SourceStore (server/services/storage-sweep.ts). */
+export const sourceStore = () => sources()
+
+/** Throws unless the bucket answers (the health route). */
+export const pingStorage = () => sources().ping()

@@ -113,6 +113,8 @@ export interface CheckRunView {
   summary: Record<string, unknown>
   /** A re-check asked for by a non-member (referee, editor); it never replaces the members' report. */
   whatIf: boolean
+  /** Waiting (queued, or its worker's lease ran out) while no check worker is alive: nothing will pick it up until one starts. */
+  waitingForWorker: boolean
 }
 
 export interface RevisionView {

@@ -7,6 +7,8 @@ declare module '#auth-utils' {
   interface UserSession {
     /** users.session_version when the session was sealed; an older one is refused (server/middleware/01.session.ts). */
     sessionVersion?: number
+    /** This session's user_sessions row; ordinary sign-out deletes it (server/api/auth/sign-out.post.ts). */
+    sessionId?: string
   }
 }
 

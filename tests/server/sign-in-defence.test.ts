@@ -91,6 +91,26 @@ describe('sessions can be revoked', () => {
     expect((await copy.get('/api/_auth/session')).body.user).toBeUndefined()
   })
 
+  it('ordinary sign-out ends this session only: the same account signed in elsewhere stays signed in (issue 11)', async () => {
+    const me = await newMember('one-of-two')
+    const laptop = new Client()
+    expect((await laptop.post('/api/auth/sign-in', { email: me.email, password: PASSWORD })).status).toBe(200)
+    const copy = me.client.copy()
+    expect((await me.client.post('/api/auth/sign-out')).status).toBe(200)
+    expect((await me.client.get('/api/desk')).status).toBe(401)
+    expect((await copy.get('/api/desk')).status).toBe(401)
+    expect((await laptop.get('/api/desk')).status).toBe(200)
+    expect((await laptop.get('/api/_auth/session')).body.user.id).toBe(me.id)
+    // One session row left: the laptop's.
+    expect(await db.selectFrom('user_sessions').select('id').where('user_id', '=', me.id).execute()).toHaveLength(1)
+  })
+
+  it('a sealed session without a session row (signed before sessions had rows, or forged from an old cookie) is refused', async () => {
+    const me = await newMember('rowless')
+    await db.deleteFrom('user_sessions').where('user_id', '=', me.id).execute()
+    expect((await me.client.get('/api/desk')).status).toBe(401)
+  })
+
   it('sign out everywhere ends every other session, and is audited', async () => {
     const me = await newMember('everywhere')
     const laptop = new Client()
@@ -98,6 +118,7 @@ describe('sessions can be revoked', () => {
     expect((await me.client.post('/api/auth/sign-out-everywhere')).status).toBe(200)
     expect((await laptop.get('/api/desk')).status).toBe(401)
     expect((await me.client.get('/api/desk')).status).toBe(401)
+    expect(await db.selectFrom('user_sessions').select('id').where('user_id', '=', me.id).execute()).toEqual([])
     const audit = await db.selectFrom('audit_log').select('action').where('subject_id', '=', me.id).where('action', '=', 'sessions.revoked').execute()
     expect(audit).toHaveLength(1)
   })
@@ -107,7 +128,10 @@ describe('sessions can be revoked', () => {
     await new Client().post('/api/auth/password-reset', { email: me.email })
     const mail = await waitForMail(me.email, /new Scholium password/)
     const token = /\/password-reset\/([A-Za-z0-9_-]+)/.exec(mail.text)![1]
+    const laptop = new Client()
+    expect((await laptop.post('/api/auth/sign-in', { email: me.email, password: PASSWORD })).status).toBe(200)
     expect((await new Client().post(`/api/auth/password-reset/${token}`, { password: 'a brand new passphrase' })).status).toBe(200)
     expect((await me.client.get('/api/desk')).status).toBe(401)
+    expect((await laptop.get('/api/desk')).status).toBe(401)
   })
 })

@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { signIn } from '../../services/accounts'
+import { insertSession } from '../../repositories/sessions'
 
 const SignIn = z.object({
   email: z.string().trim().min(1, 'Enter your e-mail address').max(254),
@@ -9,7 +10,10 @@ const SignIn = z.object({
 export default defineEventHandler(async (event) => {
   const body = await readBodyAs(event, SignIn)
   const clientAddress = getRequestIP(event, { xForwardedFor: false }) ?? 'unknown'
-  const { sessionVersion, ...user } = await signIn(useDb(), { ...body, clientAddress })
-  await replaceUserSession(event, { user, sessionVersion, loggedInAt: Date.now() })
+  const db = useDb()
+  const { sessionVersion, ...user } = await signIn(db, { ...body, clientAddress })
+  // A row of its own, so signing out here ends this session and no other (server/middleware/01.session.ts).
+  const sessionId = await insertSession(db, user.id)
+  await replaceUserSession(event, { user, sessionVersion, sessionId, loggedInAt: Date.now() })
   return { user }
 })

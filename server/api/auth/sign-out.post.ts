@@ -1,12 +1,15 @@
-import { bumpSessionVersion } from '../../repositories/users'
+import { deleteSession } from '../../repositories/sessions'
 
 /**
- * Ends the session. The session version is per account, so this also ends the
- * account's other sessions: a copied cookie stops working with the original.
+ * Ends this session: its user_sessions row goes, so this cookie and any copy of it stop
+ * working, while the account's other sessions (another browser) go on. "Sign out
+ * everywhere" ends them all.
  */
 export default defineEventHandler(async (event) => {
   const session = await getUserSession(event)
-  if (session.user) await bumpSessionVersion(useDb(), session.user.id)
+  if (session.user && typeof session.sessionId === 'string' && isUuid(session.sessionId)) {
+    await deleteSession(useDb(), session.user.id, session.sessionId)
+  }
   await clearUserSession(event)
   return { signedOut: true }
 })

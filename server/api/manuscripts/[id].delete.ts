@@ -13,7 +13,7 @@ export default defineEventHandler(async (event) => {
     // manuscript is never deleted (issue 11).
     const submitted = await trx.selectFrom('submissions as s').innerJoin('revisions as r', 'r.id', 's.revision_id')
       .select('s.id').where('r.manuscript_id', '=', id).executeTakeFirst()
-    if (submitted) fail(409, 'manuscript-submitted', 'A manuscript that was submitted to a venue cannot be deleted')
+    if (submitted) fail(409, 'manuscript-submitted', 'A manuscript that was submitted to a venue cannot be deleted; withdraw the submission instead')
     await appendAudit(trx, { actorId: grant.user.id, action: 'manuscript.deleted', subjectType: 'manuscript', subjectId: id, details: { title: grant.title } })
     await deleteManuscript(trx, id)
   })

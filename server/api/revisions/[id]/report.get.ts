@@ -13,6 +13,7 @@ const Query = z.object({ run: z.string().uuid().optional() })
  * CLI's); with `?run=<id>`, that run of the revision instead (e.g. a referee's what-if run).
  * A finished run's report never changes, so once the run shown is finished the answer has an
  * ETag and a matching If-None-Match gets 304 without the report being loaded.
+ * The answer is written as JSON text here, so a cached report is not serialised again.
  */
 export default defineEventHandler(async (event): Promise<RevisionReportView | null> => {
   const { id } = await routeParamsAs(event, IdParams)
@@ -45,5 +46,9 @@ export default defineEventHandler(async (event): Promise<RevisionReportView | nu
       return null
     }
   }
-  return { ...head, report: reportRunId ? await loadRunReport(db, reportRunId) : null }
+  // The finished report comes serialised from the in-process cache (server/utils/report-cache.ts);
+  // only the small head is serialised per request.
+  const report = reportRunId ? await finishedReportJson(reportRunId, () => loadRunReport(db, reportRunId)) : null
+  setResponseHeader(event, 'content-type', 'application/json; charset=utf-8')
+  return `${JSON.stringify(head).slice(0, -1)},"report":${report ?? 'null'}}` as unknown as RevisionReportView
 })
