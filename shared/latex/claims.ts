@@ -17,6 +17,7 @@ import { classifyClaim, containsObject, exprTypes } from './classify'
 import { isDefiningLeadIn, judgeStep, proseBefore, shortReason } from './precision'
 import type { MathRegion, SourceFile } from './regions'
 import { readStatements, type ReadStatement } from './statements'
+import type { BindingScopes } from './bindings'
 
 /** Claims and not-read entries of a run, numbered and bounded by the claim limit. */
 export class ClaimOutput {
@@ -55,8 +56,8 @@ export class ClaimOutput {
 
 /** The state of the document at the point being read, kept up to date by the orchestrator. */
 export interface ReadingState {
-  /** Values bound by the text ("Let $w = 2143$"), visible here. */
-  bindings: Map<string, ContextValue>
+  /** Values bound by the text ("Let $w = 2143$"), with the scopes that end them. */
+  bindings: BindingScopes
   /** Macros a tag declared to mean an object. */
   notation: ReadonlyMap<string, NotationObject>
   /** Conventions set by tags so far, one per axis. */
@@ -184,7 +185,7 @@ export class ClaimReader {
     const symbol = bindableSymbol(statement.parts[0]!)
     if (!symbol) return false
     const valueNodes = statement.parts[1]!
-    const ctx = { bindings: this.state.bindings, notation: this.state.notation }
+    const ctx = { bindings: this.state.bindings.visible, notation: this.state.notation }
     try {
       const used = new Map<string, ContextValue>()
       let value: ContextValue
@@ -195,7 +196,7 @@ export class ClaimReader {
         if (!/^[0-9]{1,6}$/.test(text)) return false
         value = { kind: 'integer', value: Number(text) }
       }
-      this.state.bindings.set(symbol.name, value)
+      this.state.bindings.bind(symbol.name, value)
       return true
     } catch (e) {
       if (e instanceof ParseFail) return false
@@ -214,7 +215,7 @@ export class ClaimReader {
     const position = positionAt(file.starts, anchor)
     const endLine = positionAt(file.starts, Math.max(rhsSpan.end - 1, anchor)).line
     const tags = tagsFor(file, position.line, endLine, regionLine)
-    const ctx = { bindings: this.state.bindings, notation: this.state.notation }
+    const ctx = { bindings: this.state.bindings.visible, notation: this.state.notation }
     const [lhsRead, rhsRead] = SideParser.parseEquation(lhs, rhs, ctx)
     const claimTag = tags.find(d => d.type === 'claim') as { type: 'claim'; kind?: ClaimKind } | undefined
     const skip = tags.some(d => d.type === 'skip')

@@ -8,7 +8,7 @@
  * notation), as TeX does through \input. Content problems become warnings or error claims; only
  * programmer misuse throws.
  */
-import type { ContextValue, ReadFileInfo, ReaderWarning, WarningCode } from '../types/claims'
+import type { ReadFileInfo, ReaderWarning, WarningCode } from '../types/claims'
 import { axisOfConvention, type ConventionAxis, type ConventionId } from '../types/conventions'
 import { decodeSource, lineStarts, positionAt } from './decode'
 import { maskSource } from './mask'
@@ -19,6 +19,7 @@ import { isTagComment, parseTag, type NotationObject, type TagDirective } from '
 import type { ReaderLimits } from './limits'
 import { MATH_ENVIRONMENTS, collectMath, readEnvName, type Closer, type MathRegion } from './regions'
 import { ClaimOutput, ClaimReader } from './claims'
+import { BindingScopes, SCOPING_ENVIRONMENTS, declaredTheoremNames } from './bindings'
 
 interface LoadedFile {
   path: string
@@ -43,7 +44,9 @@ export class ReaderRun {
   private readonly macros = new Map<string, MacroDefinition>()
   private readonly notation = new Map<string, NotationObject>()
   private readonly protectedNames = new Set<string>()
-  private readonly bindings = new Map<string, ContextValue>()
+  private readonly bindings = new BindingScopes()
+  /** Environments that end the bindings made inside them (see bindings.ts). */
+  private readonly scopingEnvironments = new Set(SCOPING_ENVIRONMENTS)
   private readonly conventions = new Map<ConventionAxis, ConventionId>()
   private readonly budget = { produced: 0 }
   private readonly output: ClaimOutput
@@ -194,6 +197,7 @@ export class ReaderRun {
     const file = this.load(path)
     if (!file) return
     const x = new Expander(new Tokenizer(file.masked), this.macros, this.protectedNames, this.limits, this.budget)
+    for (const name of declaredTheoremNames(file.masked)) this.scopingEnvironments.add(name)
     let nextEvent = 0
     const applyEvents = (upTo: number) => {
       while (nextEvent < file.events.length && file.events[nextEvent]!.offset < upTo) {
@@ -213,6 +217,10 @@ export class ReaderRun {
       }
       if (!t) break
       applyEvents(t.pos)
+      if (t.k === 'par') {
+        if (isBlankLineBetween(file.original, t)) this.bindings.endParagraph()
+        continue
+      }
       if (t.k === 'ch') {
         if (t.v === '$') this.readRegion(file, x, t, { kind: '$' }, false)
         else if (t.v === '$$') this.readRegion(file, x, t, { kind: '$$' }, true)
@@ -231,12 +239,21 @@ export class ReaderRun {
             if (arg && arg.v === '{') x.readGroupBody(arg, t)
           }
           this.readRegion(file, x, t, { kind: 'env', name: env }, env !== 'math')
-        }
-      } else if (SECTIONING.has(name)) this.bindings.clear()
+        } else if (env && this.isScoping(env)) this.bindings.openEnvironment(env)
+      } else if (name === 'end') {
+        const env = readEnvName(x)
+        if (env && this.isScoping(env)) this.bindings.closeEnvironment(env)
+      } else if (name === 'par') this.bindings.endParagraph()
+      else if (SECTIONING.has(name)) this.bindings.clear()
       else if (INCLUDES.has(name)) this.include(file, x, t, depth, chain)
       else if (name === 'usepackage' || name === 'RequirePackage') this.usePackage(file, x, t, depth, chain)
     }
     applyEvents(Infinity)
+  }
+
+  /** `example`, `example*`, or a name the paper declared with \\newtheorem. */
+  private isScoping(env: string): boolean {
+    return this.scopingEnvironments.has(env.replace(/\*$/, ''))
   }
 
   private applyEvent(d: TagDirective): void {
@@ -349,6 +366,12 @@ export class ReaderRun {
     if (collected.failure) this.claimReader.pushErrorClaim(region, collected.failure.message, collected.failure.pos)
     else this.claimReader.readRegion(region)
   }
+}
+
+/** A paragraph break in the source: a line with nothing on it (not a line holding only a comment). */
+function isBlankLineBetween(original: string, token: Token): boolean {
+  const lines = original.slice(token.pos, token.end).split('\n')
+  return lines.slice(1, -1).some(line => line.trim() === '')
 }
 
 function rank(path: string, f: LoadedFile | null): number {

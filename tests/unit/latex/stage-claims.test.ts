@@ -1,6 +1,7 @@
 // Stage "claims" (shared/latex/claims.ts): regions in, claims, bindings and not-read entries out.
 import { describe, expect, it } from 'vitest'
 import { ClaimOutput, ClaimReader, type ReadingState } from '../../../shared/latex/claims'
+import { BindingScopes } from '../../../shared/latex/bindings'
 import { lineStarts } from '../../../shared/latex/decode'
 import { tokenize } from '../../../shared/latex/tokens'
 import type { MathRegion, SourceFile } from '../../../shared/latex/regions'
@@ -11,7 +12,7 @@ function setup(text: string, display = false) {
   const file: SourceFile = { path: 'a.tex', original: text, masked: text, starts: lineStarts(text), lineTags: new Map() }
   const warnings: { code: WarningCode; message: string }[] = []
   const output = new ClaimOutput(10, (code, message) => warnings.push({ code, message }))
-  const state: ReadingState = { bindings: new Map(), notation: new Map(), conventions: new Map() }
+  const state: ReadingState = { bindings: new BindingScopes(), notation: new Map(), conventions: new Map() }
   const reader = new ClaimReader(output, state)
   const regionOf = (from: number, to: number): MathRegion => ({
     file, tokens: tokenize(text.slice(from, to)).map(t => ({ ...t, pos: t.pos + from, end: t.end + from })), pos: from - (display ? 0 : 1), end: to + 1, display,
@@ -35,7 +36,7 @@ describe('ClaimReader', () => {
 
   it('binds a symbol and records the binding in the claims that use it', () => {
     const { output, state } = readInline('Let $w = 213$. Then $\\ell(w) = 1$.')
-    expect(state.bindings.get('w')).toEqual({ kind: 'permutation', perm: { form: 'oneLine', entries: [2, 1, 3] } })
+    expect(state.bindings.visible.get('w')).toEqual({ kind: 'permutation', perm: { form: 'oneLine', entries: [2, 1, 3] } })
     expect(output.claims).toHaveLength(1)
     expect(output.claims[0]!.context).toEqual({ w: { kind: 'permutation', perm: { form: 'oneLine', entries: [2, 1, 3] } } })
   })
