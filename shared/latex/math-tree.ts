@@ -127,6 +127,8 @@ function dropSpacingArgs(nodes: MathNode[]): MathNode[] {
 export interface MathRow {
   nodes: MathNode[]
   label?: string
+  /** Where the row's `&` stood: indices into `nodes` (the `&` themselves are taken out). */
+  alignPoints?: number[]
 }
 
 /** Cut a display into rows at \\ (dissolving aligned/split/gathered), taking out labels, tags and &. */
@@ -145,10 +147,12 @@ export function splitRows(nodes: MathNode[]): MathRow[] {
   const rows: MathRow[] = []
   let cur: MathNode[] = []
   let label: string | undefined
+  let alignPoints: number[] = []
   const endRow = () => {
-    if (cur.length) rows.push({ nodes: cur, label })
+    if (cur.length) rows.push({ nodes: cur, label, ...(alignPoints.length ? { alignPoints } : {}) })
     cur = []
     label = undefined
+    alignPoints = []
   }
   for (let i = 0; i < flat.length; i++) {
     const n = flat[i]!
@@ -173,7 +177,10 @@ export function splitRows(nodes: MathNode[]): MathRow[] {
       }
       continue
     }
-    if (n.k === 'ch' && n.v === '&') continue
+    if (n.k === 'ch' && n.v === '&') {
+      alignPoints.push(cur.length)
+      continue
+    }
     cur.push(n)
   }
   endRow()
