@@ -12,12 +12,13 @@ import { positionAt } from './decode'
 import { renderTokens } from './tokens'
 import type { NotationObject, TagDirective } from './tags'
 import { MathSyntaxError, buildMathTree, renderNodes, spanOf, type MathNode, type Statement } from './math-tree'
-import { SideParser, bindableSymbol, readPartition, readPermutation, ParseFail, type SideResult } from './expression'
+import { SideParser, bindableSymbol, readPartition, readPermutation, ParseFail, type ParseContext, type SideResult } from './expression'
 import { classifyClaim, containsObject, exprTypes } from './classify'
 import { isDefiningLeadIn, judgeStep, proseBefore, shortReason } from './precision'
 import type { MathRegion, SourceFile } from './regions'
 import { readStatements, type ReadStatement } from './statements'
 import type { BindingScopes } from './bindings'
+import { arrayTableGrid, readTable, type TableGrid } from './tables'
 
 /** Claims and not-read entries of a run, numbered and bounded by the claim limit. */
 export class ClaimOutput {
@@ -74,6 +75,14 @@ interface StepPlace {
   definingLeadIn: boolean
 }
 
+/** A step whose place is not its sides' (a table row: the header gives the left side). */
+interface StepPlacement {
+  pos: number
+  end: number
+  source: string
+  bindings?: ReadonlyMap<string, ContextValue>
+}
+
 /** One `lhs relation rhs` step of a relation chain. */
 interface StepInput {
   place: StepPlace
@@ -84,6 +93,13 @@ interface StepInput {
   continued: boolean
   /** Kind of the chain's latest claim: later steps of a chain are checked even without objects of their own. */
   chainKind?: ClaimKind
+  placement?: StepPlacement
+}
+
+const EQUALS = (at: number): Statement['relations'][number] => ({ rel: '=', node: { k: 'ch', v: '=', pos: at, end: at }, name: '=' })
+const TABLE_REASONS = {
+  unknownHeader: 'a table whose header names no object Scholium knows',
+  unreadRow: 'a table row whose index could not be read',
 }
 
 export class ClaimReader {
@@ -105,6 +121,40 @@ export class ClaimReader {
     const regionLine = positionAt(region.file.starts, region.pos).line
     const definingLeadIn = !region.display && isDefiningLeadIn(proseBefore(region.file.masked, region.pos))
     this.readStatementList(readStatements(tree, region.env), { region, regionLine, definingLeadIn })
+  }
+
+  /**
+   * A table (tabular, longtable, or an array that is a whole display): claims from its rows when
+   * its header names an object Scholium knows. Otherwise the math in its cells is read as usual
+   * (a cell may hold an equation of its own), and the table is listed as not read.
+   */
+  readTable(grid: TableGrid): boolean {
+    const reading = readTable(grid, this.parseContext())
+    if (reading.kind === 'none') {
+      for (const row of grid.rows) for (const cell of row.cells) for (const region of cell.regions) this.readRegion(region)
+      const rowsWithMath = grid.rows.filter(row => row.cells.filter(cell => cell.nodes || cell.regions.length).length >= 2)
+      if (rowsWithMath.length >= 2) this.output.pushNotRead(grid.file, grid.pos, grid.end, TABLE_REASONS.unknownHeader)
+      return false
+    }
+    const region: MathRegion = { file: grid.file, tokens: [], pos: grid.pos, end: grid.end, display: grid.display }
+    // In document order: the table's claims, its unread rows, and the math of its other cells.
+    const actions: { pos: number; run: () => void }[] = [
+      ...reading.steps.map(step => ({
+        pos: step.pos,
+        run: () => {
+          const place: StepPlace = { region, label: undefined, regionLine: positionAt(grid.file.starts, step.pos).line, definingLeadIn: false }
+          this.emitStep({ place, lhs: step.lhs, rhs: step.rhs, relation: EQUALS(step.pos), continued: false, placement: step })
+        },
+      })),
+      ...reading.unreadRows.map(row => ({ pos: row.pos, run: () => this.output.pushNotRead(grid.file, row.pos, row.end, TABLE_REASONS.unreadRow) })),
+      ...reading.otherCells.flatMap(cell => cell.regions.map(cellRegion => ({ pos: cellRegion.pos, run: () => this.readRegion(cellRegion) }))),
+    ]
+    for (const action of actions.sort((a, b) => a.pos - b.pos)) action.run()
+    return true
+  }
+
+  private parseContext(): ParseContext {
+    return { bindings: this.state.bindings.visible, notation: this.state.notation }
   }
 
   /** An error claim for a region that could not be read (unclosed, unbalanced, runaway macro). */
@@ -129,6 +179,10 @@ export class ClaimReader {
     let chain: { lastSide: MathNode[]; kind?: ClaimKind } | undefined
     for (const statement of statements) {
       const place: StepPlace = { ...where, label: statement.label }
+      if (statement.array && this.readTable(arrayTableGrid(where.region.file, statement.array))) {
+        chain = undefined
+        continue
+      }
       const lastSide = statement.parts[statement.parts.length - 1]!
       if (statement.continuesChain && chain) {
         const first = this.emitStep({
@@ -185,7 +239,7 @@ export class ClaimReader {
     const symbol = bindableSymbol(statement.parts[0]!)
     if (!symbol) return false
     const valueNodes = statement.parts[1]!
-    const ctx = { bindings: this.state.bindings.visible, notation: this.state.notation }
+    const ctx = this.parseContext()
     try {
       const used = new Map<string, ContextValue>()
       let value: ContextValue
@@ -206,16 +260,16 @@ export class ClaimReader {
 
   /** Turn one step into a claim, a not-read entry, or nothing; returns the claim's kind. */
   private emitStep(input: StepInput): ClaimKind | undefined {
-    const { place: { region, label, regionLine, definingLeadIn }, lhs, rhs, relation, continued, chainKind } = input
+    const { place: { region, label, regionLine, definingLeadIn }, lhs, rhs, relation, continued, chainKind, placement } = input
     const file = region.file
     const lhsSpan = spanOf(lhs)
     const rhsSpan = spanOf(rhs)
     if (!lhsSpan || !rhsSpan) return undefined
-    const anchor = continued ? relation.node.pos : lhsSpan.pos
+    const anchor = placement ? placement.pos : continued ? relation.node.pos : lhsSpan.pos
     const position = positionAt(file.starts, anchor)
-    const endLine = positionAt(file.starts, Math.max(rhsSpan.end - 1, anchor)).line
+    const endLine = positionAt(file.starts, Math.max((placement?.end ?? rhsSpan.end) - 1, anchor)).line
     const tags = tagsFor(file, position.line, endLine, regionLine)
-    const ctx = { bindings: this.state.bindings.visible, notation: this.state.notation }
+    const ctx: ParseContext = placement?.bindings ? { ...this.parseContext(), bindings: placement.bindings } : this.parseContext()
     const [lhsRead, rhsRead] = SideParser.parseEquation(lhs, rhs, ctx)
     const claimTag = tags.find(d => d.type === 'claim') as { type: 'claim'; kind?: ClaimKind } | undefined
     const skip = tags.some(d => d.type === 'skip')
@@ -224,7 +278,8 @@ export class ClaimReader {
     if (relation.rel !== '=') judgement = { type: 'unsupported', reason: `the relation ${relation.name} is not checked; only equalities are` }
     if (!claimTag && judgement.type === 'silent') return undefined
     if (!claimTag && judgement.type === 'notRead') {
-      this.output.pushNotRead(file, Math.min(lhsSpan.pos, rhsSpan.pos), Math.max(lhsSpan.end, rhsSpan.end), judgement.reason)
+      if (placement) this.output.pushNotRead(file, placement.pos, placement.end, judgement.reason)
+      else this.output.pushNotRead(file, Math.min(lhsSpan.pos, rhsSpan.pos), Math.max(lhsSpan.end, rhsSpan.end), judgement.reason)
       return undefined
     }
     const context: Record<string, ContextValue> = {}
@@ -232,7 +287,7 @@ export class ClaimReader {
     const base = {
       file: file.path, line: position.line, endLine: Math.max(endLine, position.line), column: position.column,
       // Sides that overlap come from one macro call: its text is the claim as written.
-      source: rhsSpan.pos < lhsSpan.end && lhsSpan.pos < rhsSpan.end
+      source: placement ? placement.source : rhsSpan.pos < lhsSpan.end && lhsSpan.pos < rhsSpan.end
         ? sliceTrim(file.original, { pos: Math.min(lhsSpan.pos, rhsSpan.pos), end: Math.max(lhsSpan.end, rhsSpan.end) })
         : `${sliceTrim(file.original, lhsSpan)} = ${sliceTrim(file.original, rhsSpan)}`,
       expandedSource: `${renderNodes(lhs)} = ${renderNodes(rhs)}`,

@@ -124,6 +124,26 @@ function dropSpacingArgs(nodes: MathNode[]): MathNode[] {
   return out
 }
 
+/**
+ * `\begin{array}{rcl} a & = & b \\ & = & c \end{array}`: an array whose middle column holds the
+ * relations is a display's rows, not a matrix. Every row has its relation (or nothing, on a row
+ * that continues) in its second cell, and at least one row has one.
+ */
+export function isRelationArray(env: MathNode & { k: 'env' }): boolean {
+  if (env.name !== 'array') return false
+  const rows: MathNode[][][] = [[[]]]
+  for (const n of env.children) {
+    if (n.k === 'cs' && (n.v === '\\' || n.v === 'cr')) rows.push([[]])
+    else if (isChar(n, '&')) rows[rows.length - 1]!.push([])
+    else if (!(n.k === 'cs' && n.v === 'hline')) rows[rows.length - 1]![rows[rows.length - 1]!.length - 1]!.push(n)
+  }
+  const filled = rows.filter(cells => cells.some(cell => cell.length))
+  const isRelation = (cell: MathNode[] | undefined) => !!cell && cell.length === 1 && (isChar(cell[0], '=') || (cell[0]!.k === 'cs' && OTHER_RELATIONS.has(cell[0]!.v)))
+  const holdsRelation = (cells: MathNode[][]) => cells.length >= 3 && isRelation(cells[1])
+  const continues = (cells: MathNode[][]) => cells.length >= 2 && cells[0]!.length === 0 && cells[1]!.length === 0
+  return filled.some(holdsRelation) && filled.every(cells => holdsRelation(cells) || continues(cells))
+}
+
 export interface MathRow {
   nodes: MathNode[]
   label?: string
@@ -136,7 +156,7 @@ export function splitRows(nodes: MathNode[]): MathRow[] {
   const flat: MathNode[] = []
   const flatten = (ns: MathNode[]) => {
     for (const n of ns) {
-      if (n.k === 'env' && DISSOLVED_ENVS.has(n.name)) {
+      if (n.k === 'env' && (DISSOLVED_ENVS.has(n.name) || isRelationArray(n))) {
         flat.push({ k: 'cs', v: '\\', pos: n.pos, end: n.pos })
         flatten(n.children)
         flat.push({ k: 'cs', v: '\\', pos: n.end, end: n.end })

@@ -17,7 +17,8 @@ import { Tokenizer, type Token } from './tokens'
 import { DEFINING_COMMANDS, Expander, ExpansionError, readDefinition, type MacroDefinition } from './macros'
 import { isTagComment, parseTag, type NotationObject, type TagDirective } from './tags'
 import type { ReaderLimits } from './limits'
-import { MATH_ENVIRONMENTS, collectMath, readEnvName, type Closer, type MathRegion } from './regions'
+import { MATH_ENVIRONMENTS, TABLE_ENVIRONMENTS, collectMath, readEnvName, skipTableArguments, type Closer, type MathRegion } from './regions'
+import { textTableGrid } from './tables'
 import { ClaimOutput, ClaimReader } from './claims'
 import { BindingScopes, SCOPING_ENVIRONMENTS, declaredTheoremNames } from './bindings'
 
@@ -239,7 +240,8 @@ export class ReaderRun {
             if (arg && arg.v === '{') x.readGroupBody(arg, t)
           }
           this.readRegion(file, x, t, { kind: 'env', name: env }, env !== 'math')
-        } else if (env && this.isScoping(env)) this.bindings.openEnvironment(env)
+        } else if (env && TABLE_ENVIRONMENTS.has(env)) this.readTextTable(file, x, t, env)
+        else if (env && this.isScoping(env)) this.bindings.openEnvironment(env)
       } else if (name === 'end') {
         const env = readEnvName(x)
         if (env && this.isScoping(env)) this.bindings.closeEnvironment(env)
@@ -365,6 +367,31 @@ export class ReaderRun {
     }
     if (collected.failure) this.claimReader.pushErrorClaim(region, collected.failure.message, collected.failure.pos)
     else this.claimReader.readRegion(region)
+  }
+
+  /**
+   * A tabular or longtable: its rows may be claims (tables.ts). When the table cannot be taken
+   * whole (never closed, a runaway macro, inside a macro's expansion), it is read as ordinary
+   * text instead, so that nothing in it is lost.
+   */
+  private readTextTable(file: LoadedFile, x: Expander, open: Token, env: string): void {
+    if (!x.atFileLevel) return
+    const saved = x.tokenizer.pos
+    try {
+      skipTableArguments(x, env, open)
+    } catch (e) {
+      if (!(e instanceof ExpansionError)) throw e
+      x.clearPending()
+      x.tokenizer.pos = saved
+      return
+    }
+    const collected = collectMath(x, open, { kind: 'env', name: env }, this.limits.maxMathTokens)
+    if (collected.failure) {
+      x.clearPending()
+      x.tokenizer.pos = saved
+      return
+    }
+    this.claimReader.readTable(textTableGrid(file, collected.tokens, open.pos, collected.end))
   }
 }
 

@@ -154,3 +154,16 @@ export function readEnvName(expander: Expander, into?: Token[]): string | undefi
   }
   return undefined
 }
+
+/** Text-mode tables whose rows may be claims (tables.ts reads them). */
+export const TABLE_ENVIRONMENTS = new Set(['tabular', 'tabular*', 'tabularx', 'tabulary', 'longtable', 'longtable*'])
+
+/**
+ * After `\begin{tabular}`: skip the width (tabular*, tabularx), the position and the column
+ * specification, which are not content. Throws ExpansionError on a missing argument.
+ */
+export function skipTableArguments(expander: Expander, env: string, owner: Token): void {
+  if (env === 'tabular*' || env === 'tabularx' || env === 'tabulary') expander.readArgument(owner)
+  expander.readOptional(owner)
+  expander.readArgument(owner)
+}

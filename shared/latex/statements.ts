@@ -15,6 +15,8 @@ export interface ReadStatement extends Statement {
   label?: string
   /** The row starts with a relation (`&= C`): the left side is the last side of the statement before. */
   continuesChain: boolean
+  /** The statement is one `array` and nothing else: a table, not an expression (tables.ts). */
+  array?: MathNode & { k: 'env' }
 }
 
 /** Cut a region's tree into statements. */
@@ -26,7 +28,9 @@ export function readStatements(tree: MathNode[], env: string | undefined): ReadS
     const label = row.label ?? regionLabel
     splitStatements(row.nodes).filter(statement => !isLabelStatement(statement)).forEach((statement, indexInRow) => {
       const continuesChain = indexInRow === 0 && out.length > 0 && statement.parts[0]!.length === 0 && statement.parts.length > 1
-      out.push({ ...statement, continuesChain, ...(label ? { label } : {}) })
+      const only = statement.parts.length === 1 && statement.parts[0]!.length === 1 ? statement.parts[0]![0]! : undefined
+      const array = only?.k === 'env' && only.name === 'array' ? only : undefined
+      out.push({ ...statement, continuesChain, ...(label ? { label } : {}), ...(array ? { array } : {}) })
     })
   }
   return out
