@@ -360,8 +360,8 @@ export class ReaderRun {
   }
 
   /** Collect a piece of math up to its closer and turn it into claims. */
-  private readRegion(file: LoadedFile, x: Expander, open: Token, closer: Closer, display: boolean): void {
-    const collected = collectMath(x, open, closer, this.limits.maxMathTokens)
+  private readRegion(file: LoadedFile, expander: Expander, open: Token, closer: Closer, display: boolean): void {
+    const collected = collectMath(expander, open, closer, this.limits.maxMathTokens)
     const region: MathRegion = {
       file, tokens: collected.tokens, pos: open.pos, end: collected.end, display, env: closer.kind === 'env' ? closer.name : undefined,
     }
@@ -374,21 +374,21 @@ export class ReaderRun {
    * whole (never closed, a runaway macro, inside a macro's expansion), it is read as ordinary
    * text instead, so that nothing in it is lost.
    */
-  private readTextTable(file: LoadedFile, x: Expander, open: Token, env: string): void {
-    if (!x.atFileLevel) return
-    const saved = x.tokenizer.pos
+  private readTextTable(file: LoadedFile, expander: Expander, open: Token, env: string): void {
+    if (!expander.atFileLevel) return
+    const savedPos = expander.tokenizer.pos
     try {
-      skipTableArguments(x, env, open)
+      skipTableArguments(expander, env, open)
     } catch (e) {
       if (!(e instanceof ExpansionError)) throw e
-      x.clearPending()
-      x.tokenizer.pos = saved
+      expander.clearPending()
+      expander.tokenizer.pos = savedPos
       return
     }
-    const collected = collectMath(x, open, { kind: 'env', name: env }, this.limits.maxMathTokens)
+    const collected = collectMath(expander, open, { kind: 'env', name: env }, this.limits.maxMathTokens)
     if (collected.failure) {
-      x.clearPending()
-      x.tokenizer.pos = saved
+      expander.clearPending()
+      expander.tokenizer.pos = savedPos
       return
     }
     this.claimReader.readTable(textTableGrid(file, collected.tokens, open.pos, collected.end))
