@@ -385,7 +385,8 @@ export class ReaderRun {
       expander.tokenizer.pos = savedPos
       return
     }
-    const collected = collectMath(expander, open, { kind: 'env', name: env }, this.limits.maxMathTokens)
+    // A long table is many pieces of math: it may hold ten times the tokens of one.
+    const collected = collectMath(expander, open, { kind: 'env', name: env }, 10 * this.limits.maxMathTokens)
     if (collected.failure) {
       expander.clearPending()
       expander.tokenizer.pos = savedPos

@@ -63,3 +63,12 @@ describe('a table that cannot be taken whole', () => {
     expect(ready(r).map(c => c.source)).toHaveLength(1)
   })
 })
+
+describe('long tables', () => {
+  it('reads a longtable longer than one piece of math may be (regression: 4,000 rows fell back to no claims)', () => {
+    const rows = Array.from({ length: 4000 }, () => '$213$ & $x_1$ \\\\').join('\n')
+    const r = readSnippet(`\\begin{longtable}{cc}\n$w$ & $\\mathfrak{S}_w$ \\\\\n${rows}\n\\end{longtable}`)
+    expect(r.claims).toHaveLength(4000)
+    expect(r.claims[3999]!.line).toBe(4002)
+  })
+})
