@@ -125,9 +125,12 @@ function dropSpacingArgs(nodes: MathNode[]): MathNode[] {
 }
 
 /**
- * `\begin{array}{rcl} a & = & b \\ & = & c \end{array}`: an array whose middle column holds the
- * relations is a display's rows, not a matrix. Every row has its relation (or nothing, on a row
- * that continues) in its second cell, and at least one row has one.
+ * An array whose rows are equations is a display's rows, not a matrix or a table:
+ * `{rcl}` with `a & = & b`, `{rl}` with `a & = b`, or `{c}` with `a = b` in its one column.
+ * Rows that continue the one above (`& = & c`, `& & + x_3`) may follow. Every row must have one
+ * of these shapes and one at least must hold a relation, so that an index table
+ * (`132 & x_1 + x_2`), a matrix, or cells that are equations of their own
+ * (`w = 132 & \mathfrak{S}_w = x_1 + x_2`) are never run together.
  */
 export function isRelationArray(env: MathNode & { k: 'env' }): boolean {
   if (env.name !== 'array') return false
@@ -138,10 +141,16 @@ export function isRelationArray(env: MathNode & { k: 'env' }): boolean {
     else if (!(n.k === 'cs' && n.v === 'hline')) rows[rows.length - 1]![rows[rows.length - 1]!.length - 1]!.push(n)
   }
   const filled = rows.filter(cells => cells.some(cell => cell.length))
-  const isRelation = (cell: MathNode[] | undefined) => !!cell && cell.length === 1 && (isChar(cell[0], '=') || (cell[0]!.k === 'cs' && OTHER_RELATIONS.has(cell[0]!.v)))
-  const holdsRelation = (cells: MathNode[][]) => cells.length >= 3 && isRelation(cells[1])
-  const continues = (cells: MathNode[][]) => cells.length >= 2 && cells[0]!.length === 0 && cells[1]!.length === 0
-  return filled.some(holdsRelation) && filled.every(cells => holdsRelation(cells) || continues(cells))
+  const holdsRelation = (cell: MathNode[]) => toStatement(cell).relations.length > 0
+  const startsWithRelation = (cell: MathNode[] | undefined) => {
+    const statement = cell ? toStatement(cell) : undefined
+    return !!statement && statement.relations.length > 0 && statement.parts[0]!.length === 0
+  }
+  const equationRow = (cells: MathNode[][]) => cells.length === 1
+    ? holdsRelation(cells[0]!)
+    : cells[0]!.length > 0 && !holdsRelation(cells[0]!) && startsWithRelation(cells[1])
+  const continuationRow = (cells: MathNode[][]) => cells.length >= 2 && cells[0]!.length === 0
+  return filled.some(equationRow) && filled.every(cells => equationRow(cells) || continuationRow(cells))
 }
 
 export interface MathRow {

@@ -170,6 +170,17 @@ describe('arrays in displays', () => {
     expect(readSnippet(tex).claims.map(c => [c.source, c.status])).toEqual([['\\ell(321) = 3', 'ready'], ['3 = 1 + 2', 'ready']])
   })
 
+  it('reads arrays of equations with one column or with & = in the second', () => {
+    expect(verdictsOf('\\[ \\begin{array}{c} \\mathfrak{S}_{132} = x_1 + x_2 \\\\ \\mathfrak{S}_{213} = x_1 + x_2 \\end{array} \\]')).toEqual(['verified', 'mismatch'])
+    const tex = '\\[ \\begin{array}{rl} \\mathfrak{S}_{1342} & = x_1x_2 + x_1x_3 \\\\ & \\quad + x_2x_3 \\end{array} \\]'
+    expect(verdictsOf(tex)).toEqual(['verified'])
+  })
+
+  it('does not run together cells that are equations of their own', () => {
+    const tex = '\\[ \\begin{array}{cc} w = 312 & \\mathfrak{S}_w = x_1^2 \\\\ w = 213 & \\mathfrak{S}_w = x_2 \\end{array} \\]'
+    expect(verdictsOf(tex)).toEqual([])
+  })
+
   it('reads aligned with &=&', () => {
     const tex = '\\[ \\begin{aligned} \\mathfrak{S}_{213} &=& x_1 \\\\ \\mathfrak{S}_{132} &=& x_1 + x_2 \\end{aligned} \\]'
     expect(verdictsOf(tex)).toEqual(['verified', 'verified'])
