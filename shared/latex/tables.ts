@@ -202,8 +202,33 @@ function multicolumnContent(tokens: Token[]): Token[] {
 /** A bare index written as text in a cell: digits, parentheses, commas. */
 const BARE_INDEX = /^[0-9(),[\]]+$/
 
+/** Declarations that only style a cell (`\bfseries $w$`). */
+const STYLE_DECLARATIONS = new Set(['bfseries', 'itshape', 'mdseries', 'normalfont', 'centering', 'raggedright', 'raggedleft', 'small', 'footnotesize', 'scriptsize', 'large', 'hfill', 'strut', 'displaystyle'])
+/** Commands that style their argument (`\textbf{$w$}`). */
+const STYLE_COMMANDS = new Set(['textbf', 'textit', 'emph', 'textrm', 'textsf', 'textup', 'mbox', 'textnormal', 'underline'])
+
+/** A cell without its styling: `\textbf{$w$}` and `\bfseries $w$` are `$w$`. */
+function withoutStyle(tokens: Token[]): Token[] {
+  let out = tokens.filter(t => !(t.k === 'cs' && STYLE_DECLARATIONS.has(t.v)))
+  for (;;) {
+    const content = out.filter(t => t.k !== 'sp')
+    const [command, open] = content
+    const close = content[content.length - 1]
+    if (!(command?.k === 'cs' && STYLE_COMMANDS.has(command.v) && open?.k === 'ch' && open.v === '{' && close?.k === 'ch' && close.v === '}')) return out
+    // The group must close only at the end.
+    let depth = 0
+    let closesAtEnd = true
+    for (let i = 1; i < content.length; i++) {
+      if (content[i]!.k === 'ch' && content[i]!.v === '{') depth++
+      if (content[i]!.k === 'ch' && content[i]!.v === '}' && --depth === 0 && i < content.length - 1) closesAtEnd = false
+    }
+    if (!closesAtEnd) return out
+    out = content.slice(2, -1)
+  }
+}
+
 function textCell(file: SourceFile, raw: Token[]): TableCell {
-  const tokens = multicolumnContent(withoutRowCommands(raw))
+  const tokens = withoutStyle(multicolumnContent(withoutRowCommands(raw)))
   const content = tokens.filter(t => t.k !== 'sp' && t.k !== 'par')
   const pos = content[0]?.pos ?? raw[0]?.pos ?? 0
   const end = content[content.length - 1]?.end ?? pos

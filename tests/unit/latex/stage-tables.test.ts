@@ -37,6 +37,10 @@ describe('textTableGrid', () => {
     expect(shape(grid('\\caption{Values} \\\\ \\multicolumn{1}{c}{$w$} & $\\ell(w)$'))).toEqual([['w', '\\ell(w)']])
   })
 
+  it('reads a cell through its styling', () => {
+    expect(shape(grid('\\textbf{$w$} & \\bfseries $\\ell(w)$ & \\emph{\\textbf{213}} & \\textbf{a} $x$'))).toEqual([['w', '\\ell(w)', '213', '…']])
+  })
+
   it('places each cell at its math in the file', () => {
     const body = '$w$ & $\\ell(w)$ \\\\\n  $21$ & $1$'
     const cell = grid(body).rows[1]!.cells[0]!
