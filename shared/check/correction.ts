@@ -174,6 +174,8 @@ export function rewriteRightSide(
 ): RewrittenSide | NoCorrection {
   const { diff } = input
   if (diff.basis === 'invariant') return none(`the difference was found from the ${diff.invariant} alone, without the full value`)
+  // Grassmannian classes and tensors are written in notation the rewriter does not reproduce yet.
+  if (diff.basis === 'class' || diff.basis === 'tensor') return none('a difference of Grassmannian classes or tensors is not rewritten automatically')
   const env: EvaluationEnv = { conventions: input.conventions, meter: new BudgetMeter(CLAIM_BUDGET), memo }
   const punctuation = /[\s,.;]*$/.exec(input.rhsText)![0]
   const rhsText = input.rhsText.slice(0, input.rhsText.length - punctuation.length)

@@ -155,3 +155,14 @@ describe('the corrections patch', () => {
     }
   })
 })
+
+// Regression: a mismatch of Grassmannian classes (a diff in the `class` basis, added with the
+// Grassmannian claims) reached the term rewriter, which only knows polynomial and Schur-type bases.
+// σ_1 σ_1 = σ_2 + σ_{11} in H^*(Gr(2,4)) (the Pieri rule, common practice), so dropping σ_{11} is a mismatch.
+describe('claims the rewriter does not write', () => {
+  it('gives no automatic correction for Grassmannian classes, with a reason', () => {
+    const claim = only('In $H^*(\\mathrm{Gr}(2,4))$ we have $\\sigma_1\\sigma_1 = \\sigma_2$.')
+    expect(claim.correction?.fixed).toBe(false)
+    expect(claim.correction && !claim.correction.fixed ? claim.correction.reason : '').toMatch(/Grassmannian/)
+  })
+})
