@@ -1,6 +1,7 @@
 // Benchmark of the LaTeX reader: a synthetic 100-page manuscript (about 3,000 characters
 // per page) holding 1,000 claims of every recognised kind, spread over a main file and
 // ten section files. Goal: extraction under 1 s. Run: npx tsx scripts/bench-reader.ts
+// A binding holds to the end of its paragraph, so the claims about w bind it in their own.
 import { readFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { readManuscript } from '../shared/latex/index'
@@ -9,8 +10,8 @@ const CLAIM_TEMPLATES = [
   '$\\Sch{2143} = x_1^2 + x_1 x_2 + x_1 x_3$',
   '\\begin{align}\n\\mathfrak S_{132}(x;y) &= x_1 + x_2 - y_1 - y_2 \\\\\n &= (x_1 - y_1) + (x_2 - y_2)\n\\end{align}',
   '\\[ s_{21} s_{1} = s_{31} + s_{22} + s_{211} \\]',
-  '$\\ell(w) = 4$',
-  '$\\#\\BPD(w) = 2$',
+  'Let $w = 25143$. Then $\\ell(w) = 4$',
+  'For $w = 25143$, $\\#\\BPD(w) = 2$',
   '$c^{321}_{21,21} = 2$',
   '$K_{(3,1),(2,1,1)} = 2$',
   '$\\partial_1 \\mathfrak S_{231} = \\mathfrak S_{213}$',

@@ -89,9 +89,11 @@ export function evaluate(expr: Expr, env: EvaluationEnv): Value {
       return { kind: 'polynomial', poly: dividedDifference(arg, expr.index, 'x', env.meter) }
     }
     case 'determinant': {
-      const matrix = expr.rows.map(row => row.map(entry => toPolynomial(evaluate(entry, env))))
-      if (matrix.some(row => row.length !== matrix.length)) throw new UnsupportedClaimError('the determinant of a matrix that is not square')
-      return { kind: 'polynomial', poly: determinant(matrix, env.meter) }
+      const entries = expr.rows.map(row => row.map(entry => evaluate(entry, env)))
+      if (entries.some(row => row.length !== entries.length)) throw new UnsupportedClaimError('the determinant of a matrix that is not square')
+      // Jacobi–Trudi determinants hold symmetric functions (h_k, e_k without variables): expand over values.
+      if (entries.some(row => row.some(entry => entry.kind === 'symmetric'))) return valueDeterminant(entries, env)
+      return { kind: 'polynomial', poly: determinant(entries.map(row => row.map(toPolynomial)), env.meter) }
     }
     case 'evaluateAtOnes': {
       const arg = evaluate(expr.arg, env)
@@ -171,4 +173,34 @@ function symmetricValue(expr: Extract<Expr, { type: 'symmetric' }>, env: Evaluat
 function symmetricInVariables(schur: SchurCombination, variableCount: number | undefined, env: EvaluationEnv): Polynomial {
   if (variableCount === undefined) throw new UnsupportedClaimError('say how many variables a symmetric function is evaluated in, e.g. s_λ(1,…,1) with n ones')
   return schurCombinationToPolynomial(schur, variableCount, env.meter)
+}
+
+/** Largest matrix of symmetric functions expanded along rows (n! products of Schur combinations at most). */
+const MAX_SYMMETRIC_DETERMINANT = 6
+
+/** Determinant of a square matrix of values, by expansion along the first rows (memoised on the columns used). */
+function valueDeterminant(entries: Value[][], env: EvaluationEnv): Value {
+  const n = entries.length
+  if (n > MAX_SYMMETRIC_DETERMINANT) throw new UnsupportedClaimError(`determinants of symmetric functions larger than ${MAX_SYMMETRIC_DETERMINANT} × ${MAX_SYMMETRIC_DETERMINANT} are not supported`)
+  const memo = new Map<number, Value>()
+  const minor = (row: number, usedColumns: number): Value => {
+    if (row === n) return numberValue(1)
+    const known = memo.get(usedColumns)
+    if (known) return known
+    let total: Value = numberValue(0)
+    let sign = 1
+    for (let column = 0; column < n; column++) {
+      if (usedColumns & (1 << column)) continue
+      const entry = entries[row]![column]!
+      if (!(entry.kind === 'number' && entry.value === 0n)) {
+        env.meter.step()
+        const term = multiplyValues(entry, minor(row + 1, usedColumns | (1 << column)), env.meter)
+        total = addValues(total, sign > 0 ? term : negateValue(term))
+      }
+      sign = -sign
+    }
+    memo.set(usedColumns, total)
+    return total
+  }
+  return minor(0, 0)
 }

@@ -49,6 +49,7 @@ const PARTITION_SYMBOLS = new Set(['\\lambda', '\\mu', '\\nu', '\\kappa', '\\alp
 const isCh = (n: MathNode | undefined, v: string): boolean => !!n && n.k === 'ch' && n.v === v
 const isCs = (n: MathNode | undefined, v: string): boolean => !!n && n.k === 'cs' && n.v === v
 const isDigit = (n: MathNode | undefined): boolean => !!n && n.k === 'ch' && n.v >= '0' && n.v <= '9' && n.v.length === 1
+const isMatrix = (n: MathNode | undefined): boolean => !!n && n.k === 'env' && MATRIX_ENVS.has(n.name)
 const childrenOf = (n: MathNode): MathNode[] => (n.k === 'group' || n.k === 'env' ? n.children : [n])
 
 /** How a symbol node is named in bindings: `w`, `w'`, `\sigma`. */
@@ -320,6 +321,11 @@ export class SideParser {
         case 'K':
           return this.kostka()
         case '|':
+          // |\begin{matrix}…\end{matrix}|: a determinant.
+          if (isMatrix(this.peek()) && isCh(this.peek(1), '|')) {
+            this.i += 2
+            return this.determinant(this.nodes[this.i - 2]!)
+          }
           return this.countBetweenBars(m => isCh(m, '|'))
       }
       throw new ParseFail(`unknown symbol ${n.v}`)
@@ -344,6 +350,11 @@ export class SideParser {
       case 'lvert':
         return this.countBetweenBars(m => isCs(m, 'rvert'))
       case 'left':
+        // \left|\begin{array}…\end{array}\right|: a determinant.
+        if (isCh(this.peek(), '|') && isMatrix(this.peek(1)) && isCs(this.peek(2), 'right') && isCh(this.peek(3), '|')) {
+          this.i += 4
+          return this.determinant(this.nodes[this.i - 3]!)
+        }
         if (isCh(this.peek(), '|')) {
           this.i++
           return this.countBetweenBars(m => isCs(m, 'right'), true)

@@ -124,9 +124,40 @@ function dropSpacingArgs(nodes: MathNode[]): MathNode[] {
   return out
 }
 
+/**
+ * An array whose rows are equations is a display's rows, not a matrix or a table:
+ * `{rcl}` with `a & = & b`, `{rl}` with `a & = b`, or `{c}` with `a = b` in its one column.
+ * Rows that continue the one above (`& = & c`, `& & + x_3`) may follow. Every row must have one
+ * of these shapes and one at least must hold a relation, so that an index table
+ * (`132 & x_1 + x_2`), a matrix, or cells that are equations of their own
+ * (`w = 132 & \mathfrak{S}_w = x_1 + x_2`) are never run together.
+ */
+export function isRelationArray(env: MathNode & { k: 'env' }): boolean {
+  if (env.name !== 'array') return false
+  const rows: MathNode[][][] = [[[]]]
+  for (const n of env.children) {
+    if (n.k === 'cs' && (n.v === '\\' || n.v === 'cr')) rows.push([[]])
+    else if (isChar(n, '&')) rows[rows.length - 1]!.push([])
+    else if (!(n.k === 'cs' && n.v === 'hline')) rows[rows.length - 1]![rows[rows.length - 1]!.length - 1]!.push(n)
+  }
+  const filled = rows.filter(cells => cells.some(cell => cell.length))
+  const holdsRelation = (cell: MathNode[]) => toStatement(cell).relations.length > 0
+  const startsWithRelation = (cell: MathNode[] | undefined) => {
+    const statement = cell ? toStatement(cell) : undefined
+    return !!statement && statement.relations.length > 0 && statement.parts[0]!.length === 0
+  }
+  const equationRow = (cells: MathNode[][]) => cells.length === 1
+    ? holdsRelation(cells[0]!)
+    : cells[0]!.length > 0 && !holdsRelation(cells[0]!) && startsWithRelation(cells[1])
+  const continuationRow = (cells: MathNode[][]) => cells.length >= 2 && cells[0]!.length === 0
+  return filled.some(equationRow) && filled.every(cells => equationRow(cells) || continuationRow(cells))
+}
+
 export interface MathRow {
   nodes: MathNode[]
   label?: string
+  /** Where the row's `&` stood: indices into `nodes` (the `&` themselves are taken out). */
+  alignPoints?: number[]
 }
 
 /** Cut a display into rows at \\ (dissolving aligned/split/gathered), taking out labels, tags and &. */
@@ -134,7 +165,7 @@ export function splitRows(nodes: MathNode[]): MathRow[] {
   const flat: MathNode[] = []
   const flatten = (ns: MathNode[]) => {
     for (const n of ns) {
-      if (n.k === 'env' && DISSOLVED_ENVS.has(n.name)) {
+      if (n.k === 'env' && (DISSOLVED_ENVS.has(n.name) || isRelationArray(n))) {
         flat.push({ k: 'cs', v: '\\', pos: n.pos, end: n.pos })
         flatten(n.children)
         flat.push({ k: 'cs', v: '\\', pos: n.end, end: n.end })
@@ -145,10 +176,12 @@ export function splitRows(nodes: MathNode[]): MathRow[] {
   const rows: MathRow[] = []
   let cur: MathNode[] = []
   let label: string | undefined
+  let alignPoints: number[] = []
   const endRow = () => {
-    if (cur.length) rows.push({ nodes: cur, label })
+    if (cur.length) rows.push({ nodes: cur, label, ...(alignPoints.length ? { alignPoints } : {}) })
     cur = []
     label = undefined
+    alignPoints = []
   }
   for (let i = 0; i < flat.length; i++) {
     const n = flat[i]!
@@ -173,7 +206,10 @@ export function splitRows(nodes: MathNode[]): MathRow[] {
       }
       continue
     }
-    if (n.k === 'ch' && n.v === '&') continue
+    if (n.k === 'ch' && n.v === '&') {
+      alignPoints.push(cur.length)
+      continue
+    }
     cur.push(n)
   }
   endRow()

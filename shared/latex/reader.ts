@@ -1,63 +1,42 @@
 /**
- * The reading run: files in document order, macros, context, tags, and math turned into claims.
+ * The reading run: the orchestrator of the reader's stages.
  *
- * Conventions: one `ReaderRun` per call of `readManuscript`; state (macros, bindings, conventions,
- * notation) flows through \input in document order, as in TeX. Content problems become warnings or
- * error claims; only programmer misuse throws.
+ * Stages, each with a typed hand-off: files (decoded, masked, tagged: `LoadedFile`) → expanded
+ * tokens (macros.ts) → math regions (regions.ts: `MathRegion`) → statements (statements.ts:
+ * `ReadStatement`) → claims (claims.ts: `Claim`, "not read" entries). This class walks the files
+ * in document order and keeps the state that flows through them (macros, bindings, conventions,
+ * notation), as TeX does through \input. Content problems become warnings or error claims; only
+ * programmer misuse throws.
  */
-import type {
-  Claim, ClaimKind, ContextValue, GrassmannianSetting, NotReadMath, ReadFileInfo, ReaderWarning, WarningCode,
-} from '../types/claims'
+import type { GrassmannianSetting, ReadFileInfo, ReaderWarning, WarningCode } from '../types/claims'
 import { axisOfConvention, type ConventionAxis, type ConventionId } from '../types/conventions'
-import { positionAt } from './decode'
 import { ManuscriptFiles, type LoadedFile } from './files'
-import { Tokenizer, renderTokens, type Token } from './tokens'
+import { Tokenizer, type Token } from './tokens'
 import { DEFINING_COMMANDS, Expander, ExpansionError, MacroTable, readDefinition } from './macros'
 import type { NotationObject, TagDirective } from './tags'
-import {
-  MathSyntaxError, buildMathTree, renderNodes, spanOf, splitRows, splitStatements, type MathNode, type Statement,
-} from './math-tree'
-import { SideParser, bindableSymbol, readPartition, readPermutation, ParseFail, type ParseContext, type SideResult } from './expression'
-import { isSpaceBinding, proseSaysGrassmannian, settingForClaim, settingInMath, trailingSetting } from './notation/grassmannian'
-import { classifyClaim, containsObject, exprTypes } from './classify'
-import { isDefiningLeadIn, judgeStep, proseBefore, shortReason } from './precision'
+import { splitRows, type MathNode } from './math-tree'
+import { proseBefore } from './precision'
+import { proseSaysGrassmannian, settingInMath, trailingSetting } from './notation/grassmannian'
 import type { ReaderLimits } from './limits'
+import { MATH_ENVIRONMENTS, TABLE_ENVIRONMENTS, collectMath, readEnvName, skipTableArguments, type Closer, type MathRegion } from './regions'
+import { textTableGrid } from './tables'
+import { ClaimOutput, ClaimReader } from './claims'
+import { BindingScopes, SCOPING_ENVIRONMENTS, declaredTheoremNames } from './bindings'
 
-const MATH_ENVIRONMENTS = new Set([
-  'equation', 'equation*', 'align', 'align*', 'gather', 'gather*', 'multline', 'multline*', 'flalign', 'flalign*',
-  'alignat', 'alignat*', 'eqnarray', 'eqnarray*', 'displaymath', 'math', 'dmath', 'dmath*',
-])
-/** Environments holding one equation (a \label anywhere in them names every claim inside). */
-const SINGLE_EQUATION_ENVS = new Set(['equation', 'equation*', 'multline', 'multline*', 'displaymath', 'dmath', 'dmath*'])
 const SECTIONING = new Set(['section', 'subsection', 'chapter', 'part'])
 const INCLUDES = new Set(['input', 'include', 'subfile', 'InputIfFileExists'])
 
-type Closer = { kind: '$' } | { kind: '$$' } | { kind: 'cs'; name: string } | { kind: 'env'; name: string }
-
-interface Region {
-  file: LoadedFile
-  tokens: Token[]
-  pos: number
-  end: number
-  display: boolean
-  env?: string
-}
-
-interface Part {
-  nodes: MathNode[]
-}
-
 export class ReaderRun {
-  readonly claims: Claim[] = []
   readonly warnings: ReaderWarning[] = []
-  readonly notRead: NotReadMath[] = []
   /** The FILES stage: loading, roots, includes and packages. */
   readonly sources: ManuscriptFiles
   /** Macros, user environments and theorem-like environment names, as defined so far. */
   readonly macroTable = new MacroTable()
   private readonly notation = new Map<string, NotationObject>()
   private readonly protectedNames = new Set<string>()
-  private readonly bindings = new Map<string, ContextValue>()
+  private readonly bindings = new BindingScopes()
+  /** Environments that end the bindings made inside them (see bindings.ts). */
+  private readonly scopingEnvironments = new Set(SCOPING_ENVIRONMENTS)
   private readonly conventions = new Map<ConventionAxis, ConventionId>()
   /**
    * Grassmannian named by the text (ends with its environment or section; null when the text named
@@ -68,9 +47,9 @@ export class ReaderRun {
   /** Depth of open non-math environments, for the end of a text setting. */
   private envDepth = 0
   private readonly budget = { produced: 0 }
-  private readonly idCounts = new Map<string, number>()
+  private readonly output: ClaimOutput
+  private readonly claimReader: ClaimReader
   private definitionCount = 0
-  private claimLimitWarned = false
   private mainFile = ''
 
   constructor(
@@ -78,6 +57,20 @@ export class ReaderRun {
     private readonly limits: ReaderLimits,
   ) {
     this.sources = new ManuscriptFiles(files, limits, (code, message, file, offset) => this.warn(code, message, file, offset))
+    this.output = new ClaimOutput(limits.maxClaims, (code, message) => this.warn(code, message))
+    this.claimReader = new ClaimReader(this.output, {
+      bindings: this.bindings, notation: this.notation, conventions: this.conventions,
+      grassmannian: () => this.grassmannian,
+      noteSetting: (region, tree) => this.noteSetting(region, tree),
+    })
+  }
+
+  get claims() {
+    return this.output.claims
+  }
+
+  get notRead() {
+    return this.output.notRead
   }
 
   warn(code: WarningCode, message: string, file?: string, offset?: number): void {
@@ -106,6 +99,7 @@ export class ReaderRun {
     const file = this.sources.load(path)
     if (!file) return
     const x = new Expander(new Tokenizer(file.masked), this.macroTable, this.protectedNames, this.limits, this.budget)
+    for (const name of declaredTheoremNames(file.masked)) this.scopingEnvironments.add(name)
     let nextEvent = 0
     const applyEvents = (upTo: number) => {
       while (nextEvent < file.events.length && file.events[nextEvent]!.offset < upTo) {
@@ -125,6 +119,10 @@ export class ReaderRun {
       }
       if (!t) break
       applyEvents(t.pos)
+      if (t.k === 'par') {
+        if (isBlankLineBetween(file.original, t)) this.bindings.endParagraph()
+        continue
+      }
       if (t.k === 'ch') {
         if (t.v === '$') this.readRegion(file, x, t, { kind: '$' }, false)
         else if (t.v === '$$') this.readRegion(file, x, t, { kind: '$$' }, true)
@@ -143,10 +141,17 @@ export class ReaderRun {
             if (arg && arg.v === '{') x.readGroupBody(arg, t)
           }
           this.readRegion(file, x, t, { kind: 'env', name: env }, env !== 'math')
-        } else if (env) this.envDepth++
+        } else if (env && TABLE_ENVIRONMENTS.has(env)) this.readTextTable(file, x, t, env)
+        else if (env) {
+          this.envDepth++
+          if (this.isScoping(env)) this.bindings.openEnvironment(env)
+        }
       } else if (name === 'end') {
-        if (readEnvName(x)) this.endEnvironment()
-      } else if (SECTIONING.has(name)) {
+        const env = readEnvName(x)
+        if (env && !MATH_ENVIRONMENTS.has(env) && !TABLE_ENVIRONMENTS.has(env)) this.endEnvironment()
+        if (env && this.isScoping(env)) this.bindings.closeEnvironment(env)
+      } else if (name === 'par') this.bindings.endParagraph()
+      else if (SECTIONING.has(name)) {
         this.bindings.clear()
         this.textSetting = undefined
       }
@@ -167,9 +172,16 @@ export class ReaderRun {
     return this.textSetting ? this.textSetting.setting ?? undefined : this.tagSetting
   }
 
-  private parseContext(): ParseContext {
-    const setting = this.grassmannian
-    return { bindings: this.bindings, notation: this.notation, ...(setting ? { grassmannian: setting } : {}) }
+  /** Math that names a Grassmannian (or a claim followed by "in $H^*(Gr(k,n))$") makes it the setting. */
+  private noteSetting(region: MathRegion, tree: MathNode[]): void {
+    const named = settingInMath(splitRows(tree).map(r => r.nodes), proseSaysGrassmannian(proseBefore(region.file.masked, region.pos)))
+      ?? trailingSetting(region.file.masked, region.end)
+    if (named) this.textSetting = { setting: named === 'ambiguous' ? null : named, depth: this.envDepth }
+  }
+
+  /** `example`, `example*`, or a name the paper declared with \\newtheorem. */
+  private isScoping(env: string): boolean {
+    return this.scopingEnvironments.has(env.replace(/\*$/, ''))
   }
 
   private applyEvent(d: TagDirective): void {
@@ -254,381 +266,44 @@ export class ReaderRun {
   }
 
   /** Collect a piece of math up to its closer and turn it into claims. */
-  private readRegion(file: LoadedFile, x: Expander, open: Token, closer: Closer, display: boolean): void {
-    const saved = x.atFileLevel ? x.tokenizer.pos : undefined
-    const tokens: Token[] = []
-    let braces = 0
-    let envNest = 0
-    let failure: { message: string; pos: number } | undefined
-    let expand = true
-    let end = open.end
-    const what = closer.kind === 'env' ? `\\begin{${closer.name}}` : closer.kind === 'cs' ? (closer.name === ']' ? '\\[' : '\\(') : closer.kind
-    for (;;) {
-      let u: Token | undefined
-      try {
-        u = expand ? x.next() : x.nextRaw()
-      } catch (e) {
-        if (!(e instanceof ExpansionError)) throw e
-        failure ??= { message: e.message, pos: e.pos }
-        x.clearPending()
-        expand = false
-        continue
-      }
-      if (!u) {
-        failure = { message: `${what} is never closed`, pos: open.pos }
-        if (saved !== undefined) x.tokenizer.pos = saved
-        break
-      }
-      if (u.k === 'ch' && u.v === '{') braces++
-      else if (u.k === 'ch' && u.v === '}') braces--
-      if (closer.kind === '$' || closer.kind === '$$') {
-        if (u.k === 'par') {
-          failure = { message: `${what} math is not closed before the end of the paragraph`, pos: open.pos }
-          break
-        }
-        if (u.k === 'ch' && braces <= 0 && (u.v === '$' || u.v === '$$')) {
-          if (closer.kind === '$' && u.v === '$$') x.pushBack([{ ...u, v: '$', pos: u.pos + 1 }])
-          end = closer.kind === '$' && u.v === '$$' ? u.pos + 1 : u.end
-          break
-        }
-      } else if (closer.kind === 'cs') {
-        if (u.k === 'cs' && u.v === closer.name) {
-          end = u.end
-          break
-        }
-      } else if (u.k === 'cs' && (u.v === 'end' || u.v === 'begin')) {
-        const nameToks: Token[] = []
-        const env = readEnvName(x, nameToks)
-        if (env === closer.name && u.v === 'begin') envNest++
-        if (env === closer.name && u.v === 'end') {
-          if (envNest === 0) {
-            end = nameToks[nameToks.length - 1]?.end ?? u.end
-            break
-          }
-          envNest--
-        }
-        tokens.push(u, ...nameToks)
-        continue
-      }
-      tokens.push(u)
-      if (tokens.length > this.limits.maxMathTokens) {
-        failure = { message: `${what} is not closed within ${this.limits.maxMathTokens} tokens`, pos: open.pos }
-        x.clearPending()
-        if (saved !== undefined) x.tokenizer.pos = saved
-        break
-      }
+  private readRegion(file: LoadedFile, expander: Expander, open: Token, closer: Closer, display: boolean): void {
+    const collected = collectMath(expander, open, closer, this.limits.maxMathTokens)
+    const region: MathRegion = {
+      file, tokens: collected.tokens, pos: open.pos, end: collected.end, display, env: closer.kind === 'env' ? closer.name : undefined,
     }
-    const region: Region = { file, tokens, pos: open.pos, end, display, env: closer.kind === 'env' ? closer.name : undefined }
-    if (failure) {
-      this.pushErrorClaim(region, failure.message, failure.pos)
-      return
-    }
-    this.analyzeRegion(region)
+    if (collected.failure) this.claimReader.pushErrorClaim(region, collected.failure.message, collected.failure.pos)
+    else this.claimReader.readRegion(region)
   }
 
-  private pushErrorClaim(region: Region, message: string, pos: number): void {
-    const file = region.file
-    const at = positionAt(file.starts, Math.max(region.pos, Math.min(pos, file.original.length)))
-    const endAt = positionAt(file.starts, Math.max(region.pos, Math.min(region.end, file.original.length)))
-    const source = file.original.slice(region.pos, Math.min(region.end, region.pos + 2000))
-    this.pushClaim({
-      file: file.path, line: at.line, endLine: Math.max(at.line, endAt.line), column: at.column,
-      source, expandedSource: renderTokens(region.tokens.slice(0, 2000)), kind: 'unknown', status: 'error',
-      reason: message, conventions: this.activeConventions([]), display: region.display,
-    })
-  }
-
-  private pushClaim(c: Omit<Claim, 'id'>): void {
-    if (this.claims.length >= this.limits.maxClaims) {
-      if (!this.claimLimitWarned) this.warn('limit', `more than ${this.limits.maxClaims} claims; later ones are dropped`)
-      this.claimLimitWarned = true
-      return
-    }
-    const key = `${c.file}:${c.line}`
-    const n = (this.idCounts.get(key) ?? 0) + 1
-    this.idCounts.set(key, n)
-    this.claims.push({ id: `${key}:${n}`, ...c })
-  }
-
-  private activeConventions(use: ConventionId[]): ConventionId[] {
-    const m = new Map(this.conventions)
-    for (const id of use) m.set(axisOfConvention(id)!, id)
-    return [...m.values()]
-  }
-
-  private analyzeRegion(region: Region): void {
-    let tree: MathNode[]
+  /**
+   * A tabular or longtable: its rows may be claims (tables.ts). When the table cannot be taken
+   * whole (never closed, a runaway macro, inside a macro's expansion), it is read as ordinary
+   * text instead, so that nothing in it is lost.
+   */
+  private readTextTable(file: LoadedFile, expander: Expander, open: Token, env: string): void {
+    if (!expander.atFileLevel) return
+    const savedPos = expander.tokenizer.pos
     try {
-      tree = buildMathTree(region.tokens)
+      skipTableArguments(expander, env, open)
     } catch (e) {
-      if (!(e instanceof MathSyntaxError)) throw e
-      this.pushErrorClaim(region, e.message, e.pos)
+      if (!(e instanceof ExpansionError)) throw e
+      expander.clearPending()
+      expander.tokenizer.pos = savedPos
       return
     }
-    const rows = splitRows(tree)
-    const named = settingInMath(rows.map(r => r.nodes), proseSaysGrassmannian(proseBefore(region.file.masked, region.pos)))
-      ?? trailingSetting(region.file.masked, region.end)
-    if (named) this.textSetting = { setting: named === 'ambiguous' ? null : named, depth: this.envDepth }
-    const regionLabel = region.env && SINGLE_EQUATION_ENVS.has(region.env) ? rows.find(r => r.label)?.label : undefined
-    const startLine = positionAt(region.file.starts, region.pos).line
-    const definingLeadIn = !region.display && isDefiningLeadIn(proseBefore(region.file.masked, region.pos))
-    let chain: ChainState | undefined
-    for (const row of rows) {
-      const label = row.label ?? regionLabel
-      const statements = splitStatements(row.nodes)
-      statements.forEach((st, j) => {
-        const first = st.parts[0]!
-        const at = { region, label, startLine, definingLeadIn }
-        if (j === 0 && chain && first.length === 0 && st.parts.length > 1) {
-          // "&= C" continues the previous row: C is checked against its last expression.
-          const step = this.emitStep({ at, lhs: chain.lastSide, rhs: { nodes: st.parts[1]! }, relation: st.relations[0]!, continued: true, chainKind: chain.kind })
-          const kind = this.emitChain(at, st, 1, step?.kind ?? chain.kind)
-          chain = { lastSide: { nodes: st.parts[st.parts.length - 1]! }, kind: kind.kind, lastStep: kind.lastStep ?? step }
-          return
-        }
-        if (j === 0 && chain && st.parts.length === 1 && (first[0]?.k === 'ch' && (first[0].v === '+' || first[0].v === '-'))) {
-          // "& + x_3": a long right-hand side continued on this row. Re-read the last step.
-          this.extendLastClaim(chain, first)
-          return
-        }
-        if (this.tryBinding(st)) {
-          chain = undefined
-          return
-        }
-        const made = this.emitChain(at, st, 0, undefined)
-        chain = { lastSide: { nodes: st.parts[st.parts.length - 1]! }, kind: made.kind, lastStep: made.lastStep }
-      })
+    // A long table is many pieces of math: it may hold ten times the tokens of one.
+    const collected = collectMath(expander, open, { kind: 'env', name: env }, 10 * this.limits.maxMathTokens)
+    if (collected.failure) {
+      expander.clearPending()
+      expander.tokenizer.pos = savedPos
+      return
     }
-  }
-
-  /** A right-hand side continued on the next row ("& + x_3"): grow it and redo the step that ended with it. */
-  private extendLastClaim(chain: ChainState, extra: MathNode[]): void {
-    const step = chain.lastStep
-    const matches = !!step && step.rhs.nodes === chain.lastSide.nodes
-    chain.lastSide = { nodes: [...chain.lastSide.nodes, ...extra] }
-    if (!step || !matches) return
-    if (step.claimIndex !== undefined) {
-      const old = this.claims[step.claimIndex]
-      if (!old || step.claimIndex !== this.claims.length - 1) return
-      this.claims.pop()
-      const key = `${old.file}:${old.line}`
-      this.idCounts.set(key, (this.idCounts.get(key) ?? 1) - 1)
-    }
-    if (step.notReadIndex !== undefined && step.notReadIndex === this.notRead.length - 1) this.notRead.pop()
-    const redone = this.emitStep({ ...step.input, rhs: chain.lastSide, relation: { ...step.input.relation, rel: '=', name: '=' } })
-    chain.lastStep = redone
-  }
-
-  private emitChain(at: StepPlace, st: Statement, from: number, chainKind: ClaimKind | undefined): { kind?: ClaimKind; lastStep?: EmittedStep } {
-    let kind = chainKind
-    let lastStep: EmittedStep | undefined
-    for (let k = from; k + 1 < st.parts.length; k++) {
-      if (st.parts[k]!.length === 0) continue
-      lastStep = this.emitStep({ at, lhs: { nodes: st.parts[k]! }, rhs: { nodes: st.parts[k + 1]! }, relation: st.relations[k]!, continued: false, chainKind: kind })
-      if (lastStep?.kind) kind = lastStep.kind
-    }
-    if (st.parts.length === 1) this.emitLone(at.region, st.parts[0]!, at.label, at.startLine)
-    return { kind, lastStep }
-  }
-
-  /** Math without a relation is a claim only when a tag says so. */
-  private emitLone(region: Region, nodes: MathNode[], label: string | undefined, startLine: number): void {
-    const span = spanOf(nodes)
-    if (!span) return
-    const file = region.file
-    const at = positionAt(file.starts, span.pos)
-    const tags = this.tagsFor(file, at.line, positionAt(file.starts, span.end).line, startLine)
-    if (!tags.some(d => d.type === 'claim')) return
-    const claimTag = tags.find(d => d.type === 'claim') as { kind?: ClaimKind } | undefined
-    this.pushClaim({
-      file: file.path, line: at.line, endLine: positionAt(file.starts, span.end).line, column: at.column,
-      source: file.original.slice(span.pos, span.end), expandedSource: renderNodes(nodes),
-      kind: claimTag?.kind ?? 'unknown', status: 'unsupported', reason: 'tagged as a claim, but there is no equation to check',
-      conventions: this.activeConventions(useIds(tags)), display: region.display, tagged: true,
-      ...(label ? { label } : {}),
-    })
-  }
-
-  private tagsFor(file: LoadedFile, line: number, endLine: number, regionLine: number): TagDirective[] {
-    const out: TagDirective[] = []
-    if (!file.lineTags.size) return out
-    const lines = new Set<number>([regionLine])
-    for (let l = line; l <= endLine; l++) lines.add(l)
-    for (const l of lines) out.push(...(file.lineTags.get(l) ?? []))
-    return out
-  }
-
-  private tryBinding(st: Statement): boolean {
-    if (st.parts.length !== 2 || st.relations[0]!.rel === 'other') return false
-    // "X = \mathrm{Gr}(3,7)" names the space; analyzeRegion has already made it the setting.
-    if (isSpaceBinding(st.parts)) return true
-    const sym = bindableSymbol(st.parts[0]!)
-    if (!sym) return false
-    const ctx = this.parseContext()
-    try {
-      const used = new Map<string, ContextValue>()
-      let value: ContextValue
-      if (sym.family === 'permutation') value = { kind: 'permutation', perm: readPermutation(st.parts[1]!, ctx, used) }
-      else if (sym.family === 'partition') value = { kind: 'partition', parts: readPartition(st.parts[1]!, ctx, used) }
-      else {
-        const text = st.parts[1]!.map(n => (n.k === 'ch' ? n.v : '?')).join('')
-        if (!/^[0-9]{1,6}$/.test(text)) return false
-        value = { kind: 'integer', value: Number(text) }
-      }
-      this.bindings.set(sym.name, value)
-      return true
-    } catch (e) {
-      if (e instanceof ParseFail) return false
-      throw e
-    }
-  }
-
-  private pushNotRead(file: LoadedFile, pos: number, end: number, reason: string): number {
-    const line = positionAt(file.starts, pos).line
-    const source = excerpt(file.original.slice(pos, end))
-    // Beamer overlays repeat the same math: list it once.
-    if (this.notRead.some(n => n.file === file.path && n.source === source && Math.abs(n.line - line) < 40)) return -1
-    if (this.notRead.length >= this.limits.maxClaims) return -1
-    this.notRead.push({ file: file.path, line, source, reason: shortReason(reason) })
-    return this.notRead.length - 1
-  }
-
-  /** Turn one `lhs rel rhs` step into a claim, a not-read entry, or nothing. */
-  private emitStep(input: StepInput): EmittedStep | undefined {
-    const { at: { region, label, startLine, definingLeadIn }, lhs, rhs, relation, continued, chainKind } = input
-    const file = region.file
-    const lspan = spanOf(lhs.nodes)
-    const rspan = spanOf(rhs.nodes)
-    if (!lspan || !rspan) return undefined
-    const anchor = continued ? relation.node.pos : lspan.pos
-    const position = positionAt(file.starts, anchor)
-    const endLine = positionAt(file.starts, Math.max(rspan.end - 1, anchor)).line
-    const tags = this.tagsFor(file, position.line, endLine, startLine)
-    const ctx = this.parseContext()
-    const [l, r] = SideParser.parseEquation(lhs.nodes, rhs.nodes, ctx)
-    const claimTag = tags.find(d => d.type === 'claim') as { type: 'claim'; kind?: ClaimKind } | undefined
-    const skip = tags.some(d => d.type === 'skip')
-    const emitted: EmittedStep = { input, rhs }
-    if (relation.rel !== '=' && !claimTag) return undefined
-    let judgement = judgeStep({ lhs: l, rhs: r, lhsNodes: lhs.nodes, rhsNodes: rhs.nodes, definingLeadIn, inObjectChain: !!chainKind })
-    if (relation.rel !== '=') judgement = { type: 'unsupported', reason: `the relation ${relation.name} is not checked; only equalities are` }
-    else if (judgement.type === 'claim' && l.ok && r.ok && settingForClaim(l.expr, r.expr, ctx.grassmannian) === 'mixed') {
-      judgement = { type: 'notRead', reason: 'σ_λ next to polynomials or other objects (a presentation of the ring?) is not read' }
-    }
-    if (!claimTag && judgement.type === 'silent') return emitted
-    if (!claimTag && judgement.type === 'notRead') {
-      const index = this.pushNotRead(file, Math.min(lspan.pos, rspan.pos), Math.max(lspan.end, rspan.end), judgement.reason)
-      return index >= 0 ? { ...emitted, notReadIndex: index } : emitted
-    }
-    const context: Record<string, ContextValue> = {}
-    for (const [name, value] of [...l.used, ...r.used]) context[name] = value
-    let kind: ClaimKind
-    const base = {
-      file: file.path, line: position.line, endLine: Math.max(endLine, position.line), column: position.column,
-      // Sides that overlap come from one macro call: its text is the claim as written.
-      source: rspan.pos < lspan.end && lspan.pos < rspan.end
-        ? sliceTrim(file.original, { pos: Math.min(lspan.pos, rspan.pos), end: Math.max(lspan.end, rspan.end) })
-        : `${sliceTrim(file.original, lspan)} = ${sliceTrim(file.original, rspan)}`,
-      expandedSource: `${renderNodes(lhs.nodes)} = ${renderNodes(rhs.nodes)}`,
-      conventions: this.activeConventions(useIds(tags)), display: region.display,
-      ...(label ? { label } : {}),
-      ...(Object.keys(context).length ? { context } : {}),
-      ...(claimTag ? { tagged: true } : {}),
-    }
-    if (judgement.type === 'claim' && l.ok && r.ok) {
-      const found = settingForClaim(l.expr, r.expr, ctx.grassmannian)
-      const setting = found === 'mixed' ? undefined : found
-      const own = setting ? (setting.ring === 'quantum' ? 'quantumGrassmannian' : 'grassmannian') : classifyClaim(l.expr, r.expr)
-      // A step of plain numbers ("= 1 + 2") in a chain about ℓ(w) is still about ℓ(w).
-      const numbersOnly = own === 'polynomial' && !exprTypes(l.expr).has('variable') && !exprTypes(r.expr).has('variable')
-      kind = claimTag?.kind ?? (numbersOnly && chainKind ? chainKind : own)
-      this.pushClaim({
-        ...base, kind, status: skip ? 'skipped' : 'ready', question: { type: 'equality', lhs: l.expr, rhs: r.expr, ...(setting ? { setting } : {}) },
-        ...(skip ? { reason: 'a tag asks to skip this claim' } : {}),
-      })
-    } else {
-      kind = claimTag?.kind ?? guessKind(l, r)
-      const reason = judgement.type === 'unsupported' ? judgement.reason
-        : judgement.type === 'claim' ? 'unreadable'
-          : `tagged as a claim, but ${judgement.type === 'notRead' ? judgement.reason : 'it holds no recognised object'}`
-      this.pushClaim({ ...base, kind, status: skip ? 'skipped' : 'unsupported', reason: shortReason(reason) })
-    }
-    return { ...emitted, kind, claimIndex: this.claims.length - 1 }
+    this.claimReader.readTable(textTableGrid(file, collected.tokens, open.pos, collected.end))
   }
 }
 
-/** Where a step sits: its region, its row label and the prose before it. */
-interface StepPlace {
-  region: Region
-  label: string | undefined
-  startLine: number
-  definingLeadIn: boolean
-}
-
-/** Everything one step needs; kept so that a continued right-hand side can redo the step. */
-interface StepInput {
-  at: StepPlace
-  lhs: Part
-  rhs: Part
-  relation: Statement['relations'][number]
-  /** The step starts with its relation ("&= C"): its line is the relation's. */
-  continued: boolean
-  /** Kind of the chain's latest claim: later steps of a chain are checked even without objects of their own. */
-  chainKind?: ClaimKind
-}
-
-/** What a step produced, so the row after it can extend it. */
-interface EmittedStep {
-  input: StepInput
-  rhs: Part
-  kind?: ClaimKind
-  claimIndex?: number
-  notReadIndex?: number
-}
-
-/** The running relation chain of a display: its last expression and the step that ended with it. */
-interface ChainState {
-  lastSide: Part
-  kind?: ClaimKind
-  lastStep?: EmittedStep
-}
-
-/** A short excerpt of LaTeX for the not-read list. */
-function excerpt(source: string, max = 120): string {
-  const flat = source.replace(/\s+/g, ' ').trim()
-  return flat.length <= max ? flat : flat.slice(0, max - 1).trimEnd() + '…'
-}
-
-function useIds(tags: TagDirective[]): ConventionId[] {
-  return tags.flatMap(d => (d.type === 'use' ? d.conventions : []))
-}
-
-function sliceTrim(text: string, span: { pos: number; end: number }): string {
-  return text.slice(span.pos, span.end).trim()
-}
-
-function guessKind(l: SideResult, r: SideResult): ClaimKind {
-  if (l.ok && r.ok) return classifyClaim(l.expr, r.expr)
-  const good = l.ok ? l : r.ok ? r : undefined
-  if (good && good.ok && containsObject(good.expr)) return classifyClaim(good.expr, good.expr)
-  return 'unknown'
-}
-
-function readEnvName(x: Expander, into?: Token[]): string | undefined {
-  const open = x.nextRawNonSpace()
-  if (!open) return undefined
-  if (!(open.k === 'ch' && open.v === '{')) {
-    x.pushBack([open])
-    return undefined
-  }
-  into?.push(open)
-  let name = ''
-  for (let i = 0; i < 40; i++) {
-    const t = x.nextRaw()
-    if (!t) return undefined
-    into?.push(t)
-    if (t.k === 'ch' && t.v === '}') return name.trim()
-    name += t.k === 'cs' ? '\\' + t.v : t.v
-  }
-  return undefined
+/** A paragraph break in the source: a line with nothing on it (not a line holding only a comment). */
+function isBlankLineBetween(original: string, token: Token): boolean {
+  const lines = original.slice(token.pos, token.end).split('\n')
+  return lines.slice(1, -1).some(line => line.trim() === '')
 }
