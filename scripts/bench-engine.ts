@@ -16,6 +16,7 @@ import { mkdtempSync, writeFileSync, rmSync, existsSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join, resolve, dirname } from 'node:path'
 import { fileURLToPath } from 'node:url'
+import { fmt, median, table, time } from './lib/bench-table'
 import {
   Permutation, parsePermutation, schubertProduct, SchubertFamily, schubertPolynomial, schubertAtOnes,
   bumplessPipeDreams, ENGINE_VERSION, doubleGrothendieckPolynomial, doubleGrothendieckByHecke,
@@ -50,29 +51,6 @@ const S10_SET = [
 ]
 
 const BPD_SET = ['1432', '15432', '[1,2,6,5,4,3]', '[1,4,3,2,7,6,5]', '[1,5,4,3,2,8,7,6]', '[1,6,3,8,9,10,2,7,5,4]']
-
-function time<T>(f: () => T): [T, number] {
-  const t = performance.now()
-  const r = f()
-  return [r, performance.now() - t]
-}
-
-function median(xs: number[]): number {
-  const s = xs.slice().sort((a, b) => a - b)
-  return s[Math.floor(s.length / 2)]!
-}
-
-function fmt(ms: number): string {
-  return ms < 10 ? ms.toFixed(2) : ms < 100 ? ms.toFixed(1) : ms.toFixed(0)
-}
-
-function table(head: string[], rows: string[][]): void {
-  const widths = head.map((h, i) => Math.max(h.length, ...rows.map(r => r[i]!.length)))
-  const line = (r: string[]) => r.map((c, i) => c.padStart(widths[i]!)).join('  ')
-  console.log(line(head))
-  console.log(widths.map(w => '-'.repeat(w)).join('  '))
-  for (const r of rows) console.log(line(r))
-}
 
 /** Bundle a tiny entry (engine included) so that a fresh `node` process can run it without a TypeScript loader. */
 async function bundleWorker(dir: string): Promise<string> {

@@ -15,6 +15,7 @@ import { existsSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { dirname, join, resolve } from 'node:path'
 import { fileURLToPath } from 'node:url'
+import { fmt, median, table, time } from './lib/bench-table'
 import { ENGINE_VERSION, partitionKey, quantumKey, quantumProduct, skewSchurExpansion, type Partition } from '../shared/math'
 
 const here = dirname(fileURLToPath(import.meta.url))
@@ -45,29 +46,6 @@ const SKEW_SHAPES: [Partition, Partition][] = [
   [[5, 5, 4, 4, 3, 3], [4, 3, 2, 2, 1]],
   [[6, 6, 5, 5, 4, 4], [5, 4, 4, 3, 2, 1]],
 ]
-
-function time<T>(f: () => T): [T, number] {
-  const t = performance.now()
-  const r = f()
-  return [r, performance.now() - t]
-}
-
-function median(xs: number[]): number {
-  const s = xs.slice().sort((a, b) => a - b)
-  return s[Math.floor(s.length / 2)]!
-}
-
-function fmt(ms: number): string {
-  return ms < 10 ? ms.toFixed(2) : ms < 100 ? ms.toFixed(1) : ms.toFixed(0)
-}
-
-function table(head: string[], rows: string[][]): void {
-  const widths = head.map((h, i) => Math.max(h.length, ...rows.map(r => r[i]!.length)))
-  const line = (r: string[]) => r.map((c, i) => c.padStart(widths[i]!)).join('  ')
-  console.log(line(head))
-  console.log(widths.map(w => '-'.repeat(w)).join('  '))
-  for (const r of rows) console.log(line(r))
-}
 
 /** A bundled entry so that a fresh `node` runs the engine without a TypeScript loader: `quantum k n λ - μ` or `skew λ - μ`. */
 async function bundleWorker(dir: string): Promise<string> {
