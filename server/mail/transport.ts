@@ -21,21 +21,26 @@ export interface MailMessage { to: string, subject: string, text: string }
 /** Something that delivers one message or throws. */
 export type MailSender = (message: MailMessage) => Promise<void>
 
-/** A sender on one pooled transport. Example: `await createMailSender(settings)({ to, subject, text })` */
-export function createMailSender(smtp: SmtpSettings): MailSender {
+/** One nodemailer transport for the settings, with the given connection, greeting and socket timeouts in ms. */
+function transportFor(smtp: SmtpSettings, timeouts: { connect: number; greeting: number; socket: number }) {
   const secure = isTrue(smtp.secure)
-  const transport = nodemailer.createTransport({
+  return nodemailer.createTransport({
     host: smtp.host,
     port: Number(smtp.port),
     secure,
     auth: smtp.user ? { user: smtp.user, pass: smtp.pass } : undefined,
     // The local fake offers no TLS; a real relay on 587 negotiates it.
     ignoreTLS: !secure && smtp.host === '127.0.0.1',
-    // A relay that does not answer fails the send within seconds instead of holding a request or a run.
-    connectionTimeout: 10_000,
-    greetingTimeout: 10_000,
-    socketTimeout: 30_000,
+    connectionTimeout: timeouts.connect,
+    greetingTimeout: timeouts.greeting,
+    socketTimeout: timeouts.socket,
   })
+}
+
+/** A sender on one pooled transport. Example: `await createMailSender(settings)({ to, subject, text })` */
+export function createMailSender(smtp: SmtpSettings): MailSender {
+  // A relay that does not answer fails the send within seconds instead of holding a request or a run.
+  const transport = transportFor(smtp, { connect: 10_000, greeting: 10_000, socket: 30_000 })
   return async (message) => {
     await transport.sendMail({ from: smtp.from, to: message.to, subject: message.subject, text: message.text })
   }
@@ -43,17 +48,7 @@ export function createMailSender(smtp: SmtpSettings): MailSender {
 
 /** A probe for the health route: resolves once the relay greets us and accepts our login, throws otherwise. */
 export function createMailProbe(smtp: SmtpSettings): () => Promise<void> {
-  const secure = isTrue(smtp.secure)
-  const transport = nodemailer.createTransport({
-    host: smtp.host,
-    port: Number(smtp.port),
-    secure,
-    auth: smtp.user ? { user: smtp.user, pass: smtp.pass } : undefined,
-    ignoreTLS: !secure && smtp.host === '127.0.0.1',
-    connectionTimeout: 2000,
-    greetingTimeout: 2000,
-    socketTimeout: 2000,
-  })
+  const transport = transportFor(smtp, { connect: 2000, greeting: 2000, socket: 2000 })
   return async () => {
     await transport.verify()
   }
