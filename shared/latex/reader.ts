@@ -19,6 +19,7 @@ import {
   MathSyntaxError, buildMathTree, renderNodes, spanOf, splitRows, splitStatements, type MathNode, type Statement,
 } from './math-tree'
 import { SideParser, bindableSymbol, readPartition, readPermutation, ParseFail, type SideResult } from './expression'
+import { readCompositionBinding } from './notation/k-theory'
 import { classifyClaim, containsObject, exprTypes } from './classify'
 import { isDefiningLeadIn, judgeStep, proseBefore, shortReason } from './precision'
 import type { ReaderLimits } from './limits'
@@ -68,6 +69,8 @@ export class ReaderRun {
   private readonly roles = new Map<string, ReadFileInfo['role']>()
   private readonly macros = new Map<string, MacroDefinition>()
   private readonly notation = new Map<string, NotationObject>()
+  /** Parameters declared by `parameters` tags (notation/k-theory.ts). */
+  private readonly parameters = new Set<string>()
   private readonly protectedNames = new Set<string>()
   private readonly bindings = new Map<string, ContextValue>()
   private readonly conventions = new Map<ConventionAxis, ConventionId>()
@@ -132,7 +135,7 @@ export class ReaderRun {
       const line = positionAt(file.starts, c.offset).line
       const target = c.wholeLine ? this.nextContentLine(file, line) : line
       for (const d of tag.directives) {
-        if (d.type === 'set' || d.type === 'means') file.events.push({ offset: c.offset, directive: d })
+        if (d.type === 'set' || d.type === 'means' || d.type === 'parameters') file.events.push({ offset: c.offset, directive: d })
         else {
           const list = file.lineTags.get(target) ?? []
           list.push(d)
@@ -260,6 +263,8 @@ export class ReaderRun {
     } else if (d.type === 'means') {
       this.notation.set(d.macro, d.object)
       this.protectedNames.add(d.macro)
+    } else if (d.type === 'parameters') {
+      for (const name of d.names) this.parameters.add(name)
     }
   }
 
@@ -566,7 +571,10 @@ export class ReaderRun {
       const used = new Map<string, ContextValue>()
       let value: ContextValue
       if (sym.family === 'permutation') value = { kind: 'permutation', perm: readPermutation(st.parts[1]!, ctx, used) }
-      else if (sym.family === 'partition') value = { kind: 'partition', parts: readPartition(st.parts[1]!, ctx, used) }
+      else if (sym.family === 'partition') {
+        const composition = readCompositionBinding(sym.name, st.parts[1]!)
+        value = composition ?? { kind: 'partition', parts: readPartition(st.parts[1]!, ctx, used) }
+      }
       else {
         const text = st.parts[1]!.map(n => (n.k === 'ch' ? n.v : '?')).join('')
         if (!/^[0-9]{1,6}$/.test(text)) return false
@@ -601,7 +609,7 @@ export class ReaderRun {
     const position = positionAt(file.starts, anchor)
     const endLine = positionAt(file.starts, Math.max(rspan.end - 1, anchor)).line
     const tags = this.tagsFor(file, position.line, endLine, startLine)
-    const ctx = { bindings: this.bindings, notation: this.notation }
+    const ctx = { bindings: this.bindings, notation: this.notation, parameters: this.parameters }
     const [l, r] = SideParser.parseEquation(lhs.nodes, rhs.nodes, ctx)
     const claimTag = tags.find(d => d.type === 'claim') as { type: 'claim'; kind?: ClaimKind } | undefined
     const skip = tags.some(d => d.type === 'skip')

@@ -70,6 +70,17 @@ export type Expr =
   | { type: 'littlewoodRichardson'; lambda: Partition; mu: Partition; nu: Partition }
   /** Kostka number K_{λμ}: number of semistandard tableaux of shape λ and content μ. */
   | { type: 'kostka'; shape: Partition; content: Partition }
+  /**
+   * A formal parameter of the coefficient ring (shared/math/parameter-ring.ts): `beta` in a
+   * K-theory claim, or a letter the paper declares with a `parameters` tag (`q`, `t`, `gamma`).
+   */
+  | { type: 'parameter'; name: string }
+  /** `a \oplus b` = a + b + βab and `a \ominus b` = (a − b)/(1 + βb), β formal (shared/math/double-grothendieck.ts). */
+  | { type: 'formalGroup'; op: 'oplus' | 'ominus'; left: Expr; right: Expr }
+  /** `arg` with a parameter given a value, written `…|_{\beta=0}`; `value` is a decimal integer. */
+  | { type: 'specialise'; arg: Expr; parameter: string; value: string }
+  /** Key polynomial κ_α (`key`) or Demazure atom A_α (`atom`) of a weak composition α. */
+  | { type: 'keyPolynomial'; family: 'key' | 'atom'; composition: number[] }
 
 /** The question a claim asks: is `lhs` equal to `rhs`? */
 export interface EqualityQuestion {
@@ -95,12 +106,13 @@ export type ClaimKind =
   | 'structureConstant'
   | 'littlewoodRichardson'
   | 'kostka'
+  | 'key'
   | 'unknown'
 
 export const CLAIM_KINDS: readonly ClaimKind[] = [
   'schubert', 'grothendieck', 'stanley', 'symmetricFunction', 'polynomial', 'dividedDifference',
   'determinant', 'specialization', 'length', 'count', 'structureConstant', 'littlewoodRichardson',
-  'kostka', 'unknown',
+  'kostka', 'key', 'unknown',
 ]
 
 /**
@@ -116,6 +128,8 @@ export type ContextValue =
   | { kind: 'permutation'; perm: PermutationSpec }
   | { kind: 'partition'; parts: Partition }
   | { kind: 'integer'; value: number }
+  /** A weak composition ("Let $\alpha = (0,2,1)$"), for key polynomials and atoms. */
+  | { kind: 'composition'; parts: number[] }
 
 export interface Claim {
   /** `file:line:index`, index counting claims that start on that line from 1; stable within a run. */
