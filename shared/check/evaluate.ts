@@ -93,7 +93,10 @@ export function evaluate(expr: Expr, env: EvaluationEnv): Value {
     }
     case 'symmetric': return symmetricValue(expr, env)
     case 'dividedDifference': {
-      const arg = toPolynomial(evaluate(expr.arg, env))
+      const value = evaluate(expr.arg, env)
+      // ∂_i is linear over ℤ[parameters] and over functions of y (the ⊖ denominators), so it acts part by part.
+      if (value.kind === 'parametric') return { ...value, poly: value.poly.map(p => dividedDifference(p, expr.index, 'x', env.meter)) }
+      const arg = toPolynomial(value)
       return { kind: 'polynomial', poly: dividedDifference(arg, expr.index, 'x', env.meter) }
     }
     case 'determinant': {

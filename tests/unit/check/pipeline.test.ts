@@ -81,12 +81,12 @@ describe('claims that cannot be computed', () => {
   })
   it('unsupported claims are reported with the reason and count neither as verified nor as mismatch', () => {
     const report = checkManuscript({ files: { 'main.tex': [
-      '\\[ \\partial_1 (x_1 \\oplus y_1) = 1 + \\beta y_1 \\]',
+      '\\[ \\mathfrak{G}_{21} = x_1 \\ominus x_2 \\]',
       '\\[ s_{21} = x_1^2 x_2 + x_1 x_2^2 \\]',
       '$\\ell(2143) = 2$ % scholium: skip',
     ].join('\n') } })
     expect(report.claims.map(c => [c.line, c.verdict])).toEqual([[1, 'unsupported'], [2, 'unsupported'], [3, 'unsupported']])
-    expect(report.claims[0]!.message).toMatch(/parameters \(β, q, …\)/)
+    expect(report.claims[0]!.message).toMatch(/b a single variable y_j/)
     expect(report.claims[1]!.message).toMatch(/s_λ\(x_1,…,x_n\)/)
     expect(report.claims[2]!.message).toMatch(/^skipped/)
     expect(report.summary).toMatchObject({ claims: 3, verified: 0, mismatch: 0, error: 0, unsupported: 3, skipped: 1 })

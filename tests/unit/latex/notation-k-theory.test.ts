@@ -58,6 +58,11 @@ describe('⊕ and ⊖ in claims, G_w(x;y) in both normalisations', () => {
     expect(verdictsOf('$$\\mathfrak{G}_{321}(x;y) = (x_1 \\oplus y_1)(x_1 \\oplus y_2)(x_2 \\oplus y_2)$$')).toEqual(['mismatch'])
   })
 
+  it('divided differences act on β-polynomials: ∂_1(x_1 ⊕ y_1) = 1 + βy_1 (by hand)', () => {
+    expect(verdictsOf('$$\\partial_1 (x_1 \\oplus y_1) = 1 + \\beta y_1$$')).toEqual(['verified'])
+    expect(verdictsOf('$$\\partial_1 (x_1 \\oplus y_1) = 1 - \\beta y_1$$')).toEqual(['mismatch'])
+  })
+
   it('does not read ⊕ mixed with + at one level', () => {
     const r = readSnippet('$$\\mathfrak{G}_{21}(x;y) = x_1 \\oplus y_1 + 0$$')
     expect(r.claims.filter(c => c.status === 'ready')).toEqual([])
@@ -135,6 +140,13 @@ describe('key polynomials and Demazure atoms', () => {
   it('S_w in keys: S_{132} = κ_{(0,1)} (x_1 + x_2) and S_{1432} = κ_{021} + … is read as a polynomial identity', () => {
     expect(verdictsOf('$\\mathfrak{S}_{132} = \\kappa_{(0,1)}$')).toEqual(['verified'])
     expect(verdictsOf('$\\mathfrak{S}_{132} = \\kappa_{(1)}$')).toEqual(['mismatch'])
+  })
+
+  it('published facts through the reader: S_w = κ_{code(w)} for vexillary w, κ_α = s_λ(x_1..x_n) for α increasing (common practice)', () => {
+    // 1432 is vexillary (it avoids 2143) with Lehmer code (0,2,1); (0,1,2) is the increasing rearrangement of (2,1).
+    expect(verdictsOf('$\\mathfrak{S}_{1432} = \\kappa_{(0,2,1)}$')).toEqual(['verified'])
+    expect(verdictsOf('$\\kappa_{(0,1,2)} = s_{21}(x_1,x_2,x_3)$')).toEqual(['verified'])
+    expect(verdictsOf('$\\kappa_{(0,2,1)} = s_{21}(x_1,x_2,x_3)$')).toEqual(['mismatch'])
   })
 
   it('reads \\mathcal{A}_\\alpha with α bound: A_{102} = x_1x_2x_3 + x_1x_3^2 (by hand)', () => {
