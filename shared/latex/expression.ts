@@ -299,7 +299,7 @@ export class SideParser {
       this.i += keyFamily.length
       const { sub, sup } = this.readScripts()
       if (sup) this.i -= 2
-      const composition = readComposition(sub!, this.ctx, this.used)
+      const composition = readComposition(sub!, this.ctx, this.used, keyFamily.family === 'atom')
       if (!composition) {
         this.i = start
         throw new ParseFail(keyFamily.family === 'key' ? 'unknown symbol \\kappa' : 'unknown symbol \\mathcal{A}')

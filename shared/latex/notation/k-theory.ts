@@ -15,7 +15,8 @@
  *   parameter an integer value.
  * - Key polynomials `\kappa_{(0,2,1)}`, `\kappa_{021}`, `\kappa_{0,2,1}`, `\kappa_\alpha` (α bound by
  *   "Let $\alpha = (0,2,1)$") and Demazure atoms `\mathcal{A}_{(1,0,2)}`, `\mathcal{A}_\alpha`.
- *   Digits written together are one entry each. A bare one-digit index (`\kappa_1`, `\mathcal{A}_2`)
+ *   Digits written together are one entry each; for atoms a bare run needs a 0 or three entries
+ *   (`\mathcal{A}_{12}` may be a matrix entry). A bare one-digit index (`\kappa_1`, `\mathcal{A}_2`)
  *   reads as the part of a partition or a numbered object, never as a composition: it is not read.
  */
 import type { ContextValue } from '../../types/claims'
@@ -109,7 +110,7 @@ const COMPOSITION_SYMBOLS = new Set(['\\alpha', '\\gamma', '\\beta', '\\mu', '\\
  * which is one). Returns undefined, without a reason, for what is not a composition at all (a bare
  * single digit, letters), so the caller can stay silent.
  */
-export function readComposition(sub: MathNode[], ctx: KTheoryContext, used: Map<string, ContextValue>): number[] | undefined {
+export function readComposition(sub: MathNode[], ctx: KTheoryContext, used: Map<string, ContextValue>, strict = false): number[] | undefined {
   const ns = unwrap(sub)
   if (ns.length === 1 && ns[0]!.k === 'cs') {
     const name = '\\' + ns[0]!.v
@@ -131,6 +132,8 @@ export function readComposition(sub: MathNode[], ctx: KTheoryContext, used: Map<
     if (!only.length || !only.every(isDigit)) return undefined
     if (only.length === 1 && !parenthesised) return undefined
     parts = only.map(d => Number((d as { v: string }).v))
+    // \mathcal{A}_{12} is as likely a matrix entry as an atom: a bare digit run needs a 0 or three entries.
+    if (strict && !parenthesised && parts.length < 3 && !parts.includes(0)) return undefined
   } else {
     parts = []
     for (const it of items) {

@@ -160,6 +160,7 @@ describe('key polynomials and Demazure atoms', () => {
       '$\\kappa_\\alpha$ for $\\alpha\\in\\mathbb{Z}_{\\ge0}^n$, and $\\kappa_\\alpha = \\sum_\\beta \\mathcal{A}_\\beta$.',
       'The parts are $\\kappa_1 = 2$ and $\\kappa_2 = 1$.',
       'Let $\\mathcal{A} = \\mathbb{Z}[x_1]$ and $\\mathcal{A}_2 = 0$.',
+      'The entry $\\mathcal{A}_{12} = x_1 - x_2$ of the matrix.',
     ].join('\n'))
     expect(r.claims).toEqual([])
   })
