@@ -23,6 +23,8 @@ export interface CheckCommand {
   main?: string
   /** List the math the reader passed over (text output); its count is always printed. */
   showUnread?: boolean
+  /** Print this claim's runnable SymPy script instead of the report. */
+  scriptFor?: string
 }
 
 export type ParsedArguments =
@@ -36,7 +38,7 @@ export const USAGE = `Usage: scholium check <file.tex | folder | file.zip | file
 Checks the worked examples of a LaTeX manuscript and marks every line that carries a claim.
 
 Options:
-  --format <name>        how to print the report: text (default), json (schema scholium.report/1),
+  --format <name>        how to print the report: text (default), json (schema scholium.report/2),
                          junit (JUnit XML, one test case per claim) or annotations (one
                          ::error file=…,line=…:: line per failing claim, for CI)
   --json                 the same as --format json
@@ -45,6 +47,8 @@ Options:
   --main <file>          the main file inside a folder or archive (default: the one with \\documentclass)
   --show-unread          list the math Scholium did not read (its count is always printed; never
                          part of the verdicts or the exit status)
+  --script-for <id>      print the self-contained SymPy script that recomputes one claim (its id
+                         from the report, e.g. main.tex:12:1) instead of the report
   -h, --help             show this text
   --version              print the version of the engine
 
@@ -73,6 +77,7 @@ export function parseArguments(argv: readonly string[]): ParsedArguments {
   }
   let main: string | undefined
   let showUnread = false
+  let scriptFor: string | undefined
   let onlyPositional = false
   for (let i = 1; i < argv.length; i++) {
     const arg = argv[i]!
@@ -124,6 +129,12 @@ export function parseArguments(argv: readonly string[]): ParsedArguments {
         if (inlineValue !== undefined) return { command: 'problem', message: '--show-unread takes no value.' }
         showUnread = true
         break
+      case '--script-for': {
+        const value = takeValue()
+        if (value === null || value === '') return { command: 'problem', message: '--script-for needs a claim id, e.g. --script-for main.tex:12:1.' }
+        scriptFor = value
+        break
+      }
       default:
         return { command: 'problem', message: `unknown option "${name}"; see scholium --help.` }
     }
@@ -139,5 +150,5 @@ export function parseArguments(argv: readonly string[]): ParsedArguments {
     if (previous !== undefined && previous !== id) return { command: 'problem', message: `conventions "${previous}" and "${id}" choose differently on the same axis (${axis}); give one.` }
     fixed[axis] = id as ConventionId
   }
-  return { command: 'check', source: sources[0]!, format: format ?? 'text', fixed: fixed as Partial<ConventionSet>, ...(main !== undefined ? { main } : {}), ...(showUnread ? { showUnread } : {}) }
+  return { command: 'check', source: sources[0]!, format: format ?? 'text', fixed: fixed as Partial<ConventionSet>, ...(main !== undefined ? { main } : {}), ...(showUnread ? { showUnread } : {}), ...(scriptFor !== undefined ? { scriptFor } : {}) }
 }

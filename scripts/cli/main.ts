@@ -6,6 +6,7 @@
  * 2 bad command or input; 3 an internal failure.
  */
 import { checkManuscript } from '../../shared/check'
+import { reproduceScript } from '../../shared/check/reproduce-script'
 import { ENGINE_VERSION } from '../../shared/math'
 import type { Report } from '../../shared/types/report'
 import { parseArguments, USAGE, type CheckCommand } from './args'
@@ -61,8 +62,19 @@ async function runCheck(command: CheckCommand, io: CliIo): Promise<number> {
   if (source.main !== undefined && report.warnings.some(w => w.code === 'missing-file')) {
     report.warnings.push({ code: 'single-file', message: `${command.source} was read alone; to include the files it inputs, check its folder instead.` })
   }
+  if (command.scriptFor !== undefined) return printScript(report, command.scriptFor, io)
   io.out(formatReport(report, command, source, io.colour))
   return report.summary.mismatch > 0 || report.summary.error > 0 ? EXIT.failed : EXIT.ok
+}
+
+/** `--script-for <id>`: one claim's runnable SymPy script, joined from its snippet and the report's library. */
+function printScript(report: Report, claimId: string, io: CliIo): number {
+  const claim = report.claims.find(c => c.id === claimId)
+  if (!claim) { io.err(`scholium: --script-for ${claimId}: no claim with that id (ids look like main.tex:12:1).\n`); return EXIT.badInput }
+  const script = claim.reproduce && report.reproduceLibrary ? reproduceScript(report.reproduceLibrary, claim.reproduce) : null
+  if (script === null) { io.err(`scholium: --script-for ${claimId}: this claim has no SymPy script (only verified or mismatched claims of kinds SymPy can restate do).\n`); return EXIT.badInput }
+  io.out(script)
+  return EXIT.ok
 }
 
 function formatReport(report: Report, command: CheckCommand, source: SourceFiles, colour: boolean): string {

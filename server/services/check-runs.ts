@@ -122,7 +122,7 @@ export const RETRY_AFTER_SECONDS = 5
 
 /**
  * Runs one check run: take its lease, fetch the sources, check them in a worker thread,
- * and write every claim and the summary in one transaction, only while the lease is ours.
+ * and write the report and its claims index in one transaction, only while the lease is ours.
  * Exactly-once results from at-least-once delivery: the final write replaces the run's
  * claims wholesale. Never throws for a failed check: the outcome says what happened.
  */
@@ -164,12 +164,11 @@ export async function runCheck(deps: CheckRunDeps, checkRunId: string): Promise<
       channel.port1.close()
     }
 
-    const { claims, ...head } = result.report
     const written = await db.transaction().execute(async (trx) => {
       if (!await lockIfLeased(trx, checkRunId, workerId)) return false
-      await replaceRunClaims(trx, checkRunId, claims)
+      await replaceRunClaims(trx, checkRunId, result.report.claims)
       await deps.atStep?.('committing', checkRunId)
-      await markFinished(trx, checkRunId, { engineVersion: head.engine.version, summary: head, claims: claims.length, timings: { fetchMs, ...result.timings, totalMs: Date.now() - started } })
+      await markFinished(trx, checkRunId, { report: result.report, timings: { fetchMs, ...result.timings, totalMs: Date.now() - started } })
       return true
     })
     if (written) await runAfterFinished(deps, checkRunId)

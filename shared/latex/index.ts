@@ -8,6 +8,7 @@
 import type { ReadResult } from '../types/claims'
 import { DEFAULT_LIMITS, type ReaderLimits } from './limits'
 import { ReaderRun } from './reader'
+import { katexMacros } from './macros'
 import { normalizeBundlePath } from './paths'
 
 export type { ReaderLimits } from './limits'
@@ -55,7 +56,7 @@ export function readManuscript(input: ReadManuscriptInput): ReadResult {
   for (const p of outside) run.warn('path-escape', `file name "${p}" is absolute or leaves the manuscript folder; it was not read`)
   const main = input.main === undefined ? undefined : normalizeBundlePath(input.main) ?? input.main
   const fileInfo = run.run(main)
-  return { claims: run.claims, warnings: run.warnings, files: fileInfo, notRead: run.notRead }
+  return { claims: run.claims, warnings: run.warnings, files: fileInfo, notRead: run.notRead, macros: katexMacros(run.macros.values()) }
 }
 
 /**

@@ -6,7 +6,7 @@
  * token; passing `limits.maxExpansionDepth` or the output budget raises `ExpansionError`, so a
  * self-referential macro ends with a clear message instead of a hang.
  */
-import { Tokenizer, splitRuns, type Token } from './tokens'
+import { Tokenizer, renderTokens, splitRuns, type Token } from './tokens'
 
 /** One item of a \def parameter text: a parameter number or a literal delimiter token. */
 type PatternItem = { param: number } | { literal: Token }
@@ -24,6 +24,20 @@ export interface MacroDefinition {
   /** Where it was defined, for messages. */
   file: string
   offset: number
+}
+
+/**
+ * The definitions KaTeX can use as they stand, as its `macros` option takes them: plain
+ * parameters only (no optional argument, no \def delimiters), since KaTeX reads neither.
+ * e.g. `\newcommand{\Sch}[1]{\mathfrak{S}_{#1}}` gives `{ '\\Sch': '\\mathfrak{S}_{#1}' }`.
+ */
+export function katexMacros(definitions: Iterable<MacroDefinition>): Record<string, string> {
+  const table: Record<string, string> = {}
+  for (const d of definitions) {
+    if (d.optionalDefault || d.pattern) continue
+    table[`\\${d.name}`] = renderTokens(d.body)
+  }
+  return table
 }
 
 export class ExpansionError extends Error {

@@ -66,7 +66,7 @@ export class ReaderRun {
   readonly notRead: NotReadMath[] = []
   private readonly loaded = new Map<string, LoadedFile | null>()
   private readonly roles = new Map<string, ReadFileInfo['role']>()
-  private readonly macros = new Map<string, MacroDefinition>()
+  readonly macros = new Map<string, MacroDefinition>()
   private readonly notation = new Map<string, NotationObject>()
   private readonly protectedNames = new Set<string>()
   private readonly bindings = new Map<string, ContextValue>()

@@ -3,7 +3,7 @@ import { SUBMISSION_SORT_KEYS, SUBMISSION_STATUSES, type VenueSubmissionRow, typ
 import { findVenue } from '../../../repositories/venues'
 import { listRefereesForSubmissions, pageSubmissionsForVenue } from '../../../repositories/submissions'
 import { latestRunsByRevision } from '../../../services/check-runs'
-import { verdictCountsOf } from '../../../services/audit-summary'
+import { verdictCountsOf } from '#shared/types/report-schema'
 
 const Params = z.object({ id: z.string() })
 const Query = z.object({
