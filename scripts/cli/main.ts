@@ -71,7 +71,7 @@ async function runCheck(command: CheckCommand, io: CliIo): Promise<number> {
 function printScript(report: Report, claimId: string, io: CliIo): number {
   const claim = report.claims.find(c => c.id === claimId)
   if (!claim) { io.err(`scholium: --script-for ${claimId}: no claim with that id (ids look like main.tex:12:1).\n`); return EXIT.badInput }
-  const script = claim.reproduce && report.reproduceLibrary ? reproduceScript(report.reproduceLibrary, claim.reproduce) : null
+  const script = reproduceScript(report.reproduceLibrary, claim)
   if (script === null) { io.err(`scholium: --script-for ${claimId}: this claim has no SymPy script (only verified or mismatched claims of kinds SymPy can restate do).\n`); return EXIT.badInput }
   io.out(script)
   return EXIT.ok

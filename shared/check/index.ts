@@ -51,7 +51,7 @@ export function assembleReport(read: ReadResult, evaluations: readonly ClaimEval
   const claims: ReportClaim[] = read.claims.map((claim, i) => {
     const decided = decideClaim(claim, evaluations[i]!, conventions)
     const checked = claim.question !== undefined && (decided.verdict === 'verified' || decided.verdict === 'mismatch')
-    const reproduce = checked ? reproduceSnippet(claim.source, claim.question!, decided.conventions) : null
+    const reproduce = checked ? reproduceSnippet(claim.question!, decided.conventions) : null
     const expanded = claim.expandedSource !== claim.source ? { expanded: claim.expandedSource } : {}
     return reproduce !== null ? { ...decided, ...expanded, reproduce } : { ...decided, ...expanded }
   })

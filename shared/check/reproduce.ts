@@ -165,14 +165,17 @@ const IMPORTS = 'from itertools import combinations, combinations_with_replaceme
   + 'from sympy.utilities.iterables import multiset_permutations\n'
   + 'X = symbols(\'x1:31\')\nY = symbols(\'y1:31\')'
 
+const ENDING = 'difference = expand(left - right)\n\n'
+  + 'print(\'matches\' if difference == 0 else \'differs by \' + str(difference))'
+
 class NotReproducible extends Error {}
 
 /**
  * The claim's part of the SymPy script, or null when the claim is not of a kind the scripts restate.
- * e.g. `reproduceSnippet(source, question, conventions)` for S_132 = x_1 + x_2 needs `schubert`
- * (with `climb` and `ddiff` before it) and ends with a line printing "matches" when run.
+ * e.g. `reproduceSnippet(question, conventions)` for S_132 = x_1 + x_2 is
+ * `{ needs: ['ddiff', 'climb', 'schubert'], left: 'schubert([1, 3, 2])', right: '(X[0] + X[1])' }`.
  */
-export function reproduceSnippet(source: string, question: EqualityQuestion, conventions: ConventionSet): ReproduceSnippet | null {
+export function reproduceSnippet(question: EqualityQuestion, conventions: ConventionSet): ReproduceSnippet | null {
   if (conventions.partition === 'shape-columns') return null
   const used = new Set<string>()
   const variables = symmetricVariableCount(question)
@@ -194,24 +197,14 @@ export function reproduceSnippet(source: string, question: EqualityQuestion, con
     order.push(name)
   }
   for (const name of used) visit(name)
-  const comment = source.replace(/\s+/g, ' ').trim().slice(0, 160)
-  return {
-    needs: order,
-    lines: [
-      `# Recomputes, from the definitions and without Scholium: ${comment}`,
-      `left = ${left}`,
-      `right = ${right}`,
-      'difference = expand(left - right)',
-      'print(\'matches\' if difference == 0 else \'differs by \' + str(difference))',
-    ].join('\n') + '\n',
-  }
+  return { needs: order, left, right }
 }
 
 /** The imports and the helpers the given snippets need, each once. */
 export function reproduceLibrary(snippets: readonly (ReproduceSnippet | undefined | null)[]): ReproduceLibrary {
   const helpers: Record<string, string> = {}
   for (const snippet of snippets) for (const name of snippet?.needs ?? []) helpers[name] ??= HELPERS[name]!.code
-  return { imports: IMPORTS, helpers }
+  return { imports: IMPORTS, helpers, ending: ENDING }
 }
 
 interface WriteContext {

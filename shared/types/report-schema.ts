@@ -50,7 +50,7 @@ const reportClaim = z.object({
   breaksPaperConvention: z.object({ axis: z.enum(axes as [ConventionAxis, ...ConventionAxis[]]), paper: conventionId, claim: conventionId }).optional(),
   permutations: z.array(z.array(z.number().int())),
   skipped: z.literal(true).optional(),
-  reproduce: z.object({ needs: z.array(z.string()), lines: z.string() }).optional(),
+  reproduce: z.object({ needs: z.array(z.string()), left: z.string(), right: z.string() }).optional(),
   expanded: z.string().optional(),
 })
 
@@ -81,7 +81,7 @@ export const ReportDocument = z.object({
   claims: z.array(reportClaim),
   notRead: z.array(z.object({ file: z.string(), line: z.number().int(), source: z.string(), reason: z.string() })).optional(),
   macros: z.record(z.string(), z.string()).optional(),
-  reproduceLibrary: z.object({ imports: z.string(), helpers: z.record(z.string(), z.string()) }).optional(),
+  reproduceLibrary: z.object({ imports: z.string(), helpers: z.record(z.string(), z.string()), ending: z.string() }).optional(),
 }) satisfies z.ZodType<Report>
 
 /** Thrown when a stored report does not have the report's shape; says where it first differs. */

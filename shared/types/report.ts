@@ -90,16 +90,25 @@ export interface ReportClaim {
   expanded?: string
 }
 
-/** A claim's own lines of its SymPy script and the helpers (by name, in definition order) they call. */
+/**
+ * A claim's own part of its SymPy script: the two sides as Python expressions and the helpers
+ * (by name, in definition order) they call, e.g. `{ needs: ['ddiff', 'climb', 'schubert'],
+ * left: 'schubert([1, 3, 2])', right: '(X[0] + X[1])' }`.
+ */
 export interface ReproduceSnippet {
   needs: string[]
-  lines: string
+  left: string
+  right: string
 }
 
-/** What the claims' scripts share, stored once per report: the imports and each helper's code by name. */
+/**
+ * What the claims' scripts share, stored once per report: the imports, each helper's code by
+ * name, and the closing lines that compare `left` with `right` and print the outcome.
+ */
 export interface ReproduceLibrary {
   imports: string
   helpers: Record<string, string>
+  ending: string
 }
 
 export interface ConventionReport {

@@ -20,7 +20,7 @@ type ClaimWithScript = ReportClaim & { script?: string }
 
 function claimsOf(path: string): ClaimWithScript[] {
   const report = checkManuscript({ files: { 'main.tex': readFileSync(path, 'utf8') } })
-  return report.claims.map(c => c.reproduce && report.reproduceLibrary ? { ...c, script: reproduceScript(report.reproduceLibrary, c.reproduce) ?? undefined } : c)
+  return report.claims.map(c => ({ ...c, script: reproduceScript(report.reproduceLibrary, c) ?? undefined }))
 }
 
 /** Runs many scripts in one python3 process (each in its own namespace) and returns what each printed. */

@@ -141,8 +141,8 @@ describe('--json', () => {
     const withScript = r.claims.filter((c: any) => c.reproduce)
     expect(withScript.length).toBeGreaterThan(3)
     for (const c of withScript) {
-      expect(c.reproduce.lines).not.toContain('def ')
-      expect(c.reproduce.lines).not.toContain('import')
+      expect(Object.keys(c.reproduce).sort()).toEqual(['left', 'needs', 'right'])
+      expect(c.reproduce.left + c.reproduce.right).not.toMatch(/def |import/)
       for (const name of c.reproduce.needs) expect(r.reproduceLibrary.helpers[name]).toMatch(new RegExp(`^def ${name}\\(`))
     }
   })
