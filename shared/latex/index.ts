@@ -62,7 +62,8 @@ export function readManuscript(input: ReadManuscriptInput): ReadResult {
 /**
  * The reader's own choice of main file, for callers that must name it before reading (the upload
  * service). Example: `chooseMainFile({ 'a.tex': '\\documentclass{article}', 'b.tex': 'x' }) === 'a.tex'`.
- * Undefined when the bundle holds no LaTeX file.
+ * Undefined when the bundle holds no LaTeX file, or when the reader would read several roots (no
+ * file has \documentclass and several are included by none): naming one would read only that one.
  */
 export function chooseMainFile(files: Record<string, string | Uint8Array>): string | undefined {
   const normalized: Record<string, string | Uint8Array> = {}
@@ -70,5 +71,6 @@ export function chooseMainFile(files: Record<string, string | Uint8Array>): stri
     const norm = normalizeBundlePath(path)
     if (norm !== undefined) normalized[norm] = content
   }
-  return new ReaderRun(normalized, { ...DEFAULT_LIMITS }).chooseRoots(undefined)[0]
+  const roots = new ReaderRun(normalized, { ...DEFAULT_LIMITS }).chooseRoots(undefined)
+  return roots.length === 1 ? roots[0] : undefined
 }
