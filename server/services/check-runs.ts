@@ -16,7 +16,7 @@ import { MessageChannel } from 'node:worker_threads'
 import { CompiledQuery } from 'kysely'
 import type Piscina from 'piscina'
 import type { Db } from '../database/connect'
-import type { CheckRunRow } from '../database/schema'
+import type { CheckRunHead } from '../database/schema'
 import type { SourceStore } from '../storage/source-store'
 import type { ConventionSet } from '../../shared/types/conventions'
 import type { CheckRunView, CheckRunStatus } from '../../shared/types/api'
@@ -65,13 +65,13 @@ export async function requestCheckRun(trx: Db, queue: CheckQueue, input: NewChec
  * so states derived from more than the column go here: a "running" run whose lease ran out
  * is not being checked by anyone, it waits to be taken again.
  */
-export function runStatus(row: Pick<CheckRunRow, 'status' | 'lease_until'>, now: Date = new Date()): CheckRunStatus {
+export function runStatus(row: Pick<CheckRunHead, 'status' | 'lease_until'>, now: Date = new Date()): CheckRunStatus {
   if (row.status === 'running' && row.lease_until !== null && row.lease_until < now) return 'queued'
   return row.status
 }
 
 /** A run row as the API shows it. `liveWorker`: whether any check worker is alive (server/repositories/workers.ts). */
-export function checkRunView(row: CheckRunRow, liveWorker = true): CheckRunView {
+export function checkRunView(row: CheckRunHead, liveWorker = true): CheckRunView {
   const status = runStatus(row)
   return {
     id: row.id,
@@ -90,7 +90,7 @@ export function checkRunView(row: CheckRunRow, liveWorker = true): CheckRunView 
 }
 
 // Worker liveness is looked up only when some run still waits, so finished reports cost no extra query.
-async function liveWorkerFor(db: Db, rows: CheckRunRow[]): Promise<boolean> {
+async function liveWorkerFor(db: Db, rows: CheckRunHead[]): Promise<boolean> {
   return rows.some(r => runStatus(r) === 'queued') ? anyLiveWorker(db) : true
 }
 
@@ -133,7 +133,7 @@ export const RETRY_AFTER_SECONDS = 5
 
 /**
  * Runs one check run: take its lease, fetch the sources, check them in a worker thread,
- * and write every claim and the summary in one transaction, only while the lease is ours.
+ * and write the report and its claims index in one transaction, only while the lease is ours.
  * Exactly-once results from at-least-once delivery: the final write replaces the run's
  * claims wholesale. Never throws for a failed check: the outcome says what happened.
  */
@@ -175,12 +175,11 @@ export async function runCheck(deps: CheckRunDeps, checkRunId: string): Promise<
       channel.port1.close()
     }
 
-    const { claims, ...head } = result.report
     const written = await db.transaction().execute(async (trx) => {
       if (!await lockIfLeased(trx, checkRunId, workerId)) return false
-      await replaceRunClaims(trx, checkRunId, claims)
+      await replaceRunClaims(trx, checkRunId, result.report.claims)
       await deps.atStep?.('committing', checkRunId)
-      await markFinished(trx, checkRunId, { engineVersion: head.engine.version, summary: head, claims: claims.length, timings: { fetchMs, ...result.timings, totalMs: Date.now() - started } })
+      await markFinished(trx, checkRunId, { report: result.report, timings: { fetchMs, ...result.timings, totalMs: Date.now() - started } })
       return true
     })
     if (written) await runAfterFinished(deps, checkRunId)

@@ -232,4 +232,6 @@ export interface ReadResult {
   files: ReadFileInfo[]
   /** Math passed over because the reader could not be sure what it says (never counted as a verdict). */
   notRead: NotReadMath[]
+  /** The manuscript's own macros KaTeX can take (`\\name` → body with #1…), for typesetting what is written. */
+  macros?: Record<string, string>
 }

@@ -3,8 +3,7 @@ import { z } from 'zod'
 import type { RevisionReportView } from '#shared/types/api'
 import { revisionViews } from '../../../services/views'
 import { checkRunProgress } from '../../../services/check-runs'
-import { findCheckRun } from '../../../repositories/check-runs'
-import { latestFinishedRun, loadRunReport } from '../../../repositories/claims'
+import { findCheckRun, latestFinishedRun, loadRunReport } from '../../../repositories/check-runs'
 
 const Query = z.object({ run: z.string().uuid().optional() })
 
