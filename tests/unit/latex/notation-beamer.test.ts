@@ -45,3 +45,25 @@ describe('beamer decorations inside math', () => {
     expect(verdictsOf('$\\ell(w) < 2 > 1$')).not.toContain('mismatch')
   })
 })
+
+describe('overlays that show a claim again', () => {
+  // Monk's rule (common practice): S_213 S_213 = S_312, S_132 S_213 = S_231 + S_312.
+  const slide = [
+    '\\begin{frame}',
+    '\\only<1>{\\[ \\mathfrak{S}_{213}\\,\\mathfrak{S}_{213} = \\mathfrak{S}_{312} \\]}',
+    '\\only<2>{\\[ \\mathfrak{S}_{213}\\,\\mathfrak{S}_{213} = \\mathfrak{S}_{312} \\]}',
+    '\\uncover<3->{\\[ \\mathfrak{S}_{132}\\,\\mathfrak{S}_{213} = \\mathfrak{S}_{231} + \\mathfrak{S}_{312} \\]}',
+    '\\end{frame}',
+  ].join('\n')
+
+  it('reports a claim an overlay repeats once, at its first line', () => {
+    expect(readSnippet(slide).claims.map(c => [c.line, c.status])).toEqual([[2, 'ready'], [4, 'ready']])
+  })
+
+  it('keeps a repeated claim that is not on an overlay line, and an overlay claim that differs', () => {
+    const twice = '$s_{1}\\, s_{1} = s_{2} + s_{11}$\n\n$s_{1}\\, s_{1} = s_{2} + s_{11}$'
+    expect(readSnippet(twice).claims).toHaveLength(2)
+    const changed = slide.replace('\\only<2>{\\[ \\mathfrak{S}_{213}\\,\\mathfrak{S}_{213} = \\mathfrak{S}_{312}', '\\only<2>{\\[ \\mathfrak{S}_{213}\\,\\mathfrak{S}_{213} = \\mathfrak{S}_{231}')
+    expect(verdictsOf(changed)).toEqual(['verified', 'mismatch', 'verified'])
+  })
+})
