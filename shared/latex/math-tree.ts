@@ -146,10 +146,11 @@ function dropDecorations(nodes: MathNode[]): MathNode[] {
   const out: MathNode[] = []
   for (let i = 0; i < nodes.length; i++) {
     const n = nodes[i]!
-    const decoration = n.k === 'cs' ? DECORATIONS[n.v] : undefined
+    const command = n.k === 'cs' ? n.v : ''
+    const decoration = command ? DECORATIONS[command] : undefined
     if (decoration) {
       let j = decoration.overlay ? skipOverlay(nodes, i + 1) : i + 1
-      if (isChar(nodes[j], '[') && n.v.endsWith('color')) {
+      if (isChar(nodes[j], '[') && command.endsWith('color')) {
         while (j < nodes.length && !isChar(nodes[j], ']')) j++
         j++
       }
@@ -161,7 +162,7 @@ function dropDecorations(nodes: MathNode[]): MathNode[] {
         i = j
         continue
       }
-      if (ok && (!decoration.kept || n.v === 'onslide')) {
+      if (ok && (!decoration.kept || command === 'onslide')) {
         i = j - 1
         continue
       }

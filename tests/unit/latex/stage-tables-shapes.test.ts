@@ -13,7 +13,7 @@ import { checkManuscript } from '../../../shared/check/index'
 
 function checked(tex: string) {
   const report = checkManuscript({ files: { 'snippet.tex': tex } })
-  return { claims: report.claims.map(c => [c.line, c.verdict, c.source]), notRead: report.notRead.map(n => n.reason) }
+  return { claims: report.claims.map(c => [c.line, c.verdict, c.source]), notRead: (report.notRead ?? []).map(n => n.reason) }
 }
 const verdicts = (tex: string) => checked(tex).claims.map(([, verdict]) => verdict)
 const table = (...rows: string[]) => ['\\begin{tabular}{c|ccc}', ...rows, '\\end{tabular}'].join('\n')
