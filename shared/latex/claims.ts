@@ -22,6 +22,9 @@ import { arrayTableGrid, readTable, type TableGrid } from './tables'
 import { isSpaceBinding, settingForClaim } from './notation/grassmannian'
 import { readCompositionBinding } from './notation/k-theory'
 
+/** A line that shows its content on some slides only: `\only<2>{`, `\uncover<3->{`, `\item<2->`, `\onslide<2>`. */
+const OVERLAY_LINE = /\\(only|uncover|onslide|visible|item|alt)\s*<[^>\n]{1,16}>/
+
 /** Claims and not-read entries of a run, numbered and bounded by the claim limit. */
 export class ClaimOutput {
   readonly claims: Claim[] = []
@@ -34,8 +37,12 @@ export class ClaimOutput {
     private readonly warn: (code: WarningCode, message: string) => void,
   ) {}
 
-  /** Add a claim; its id is `file:line:n`, n counting the claims that start on that line. */
-  pushClaim(claim: Omit<Claim, 'id'>): void {
+  /**
+   * Add a claim; its id is `file:line:n`, n counting the claims that start on that line. Given the
+   * file, a claim on a beamer overlay line that repeats one of the 40 lines before is dropped.
+   */
+  pushClaim(claim: Omit<Claim, 'id'>, file?: SourceFile): void {
+    if (file && this.repeatsOnOverlay(claim, file)) return
     if (this.claims.length >= this.maxClaims) {
       if (!this.claimLimitWarned) this.warn('limit', `more than ${this.maxClaims} claims; later ones are dropped`)
       this.claimLimitWarned = true
@@ -45,6 +52,16 @@ export class ClaimOutput {
     const count = (this.claimsPerLine.get(lineKey) ?? 0) + 1
     this.claimsPerLine.set(lineKey, count)
     this.claims.push({ id: `${lineKey}:${count}`, ...claim })
+  }
+
+  /** `\only<2>{…}` showing again what `\only<1>{…}` showed: same source, question and bindings, on an overlay line. */
+  private repeatsOnOverlay(claim: Omit<Claim, 'id'>, file: SourceFile): boolean {
+    const text = file.original.slice(file.starts[claim.line - 1] ?? 0, file.starts[claim.line] ?? file.original.length)
+    if (!OVERLAY_LINE.test(text)) return false
+    const same = (other: Claim) => other.file === claim.file && other.source === claim.source && Math.abs(other.line - claim.line) < 40
+      && JSON.stringify(other.question) === JSON.stringify(claim.question) && JSON.stringify(other.context) === JSON.stringify(claim.context)
+    for (let j = this.claims.length - 1; j >= 0 && j >= this.claims.length - 50; j--) if (same(this.claims[j]!)) return true
+    return false
   }
 
   /** Add math the reader did not understand; beamer overlays repeat the same math, so it is listed once. */
@@ -327,7 +344,7 @@ export class ClaimReader {
       this.output.pushClaim({
         ...base, kind, status: skip ? 'skipped' : 'ready', question: { type: 'equality', lhs: lhsRead.expr, rhs: rhsRead.expr, ...(setting ? { setting } : {}) },
         ...(skip ? { reason: 'a tag asks to skip this claim' } : {}),
-      })
+      }, file)
     } else {
       kind = claimTag?.kind ?? guessKind(lhsRead, rhsRead)
       const reason = judgement.type === 'unsupported' ? judgement.reason

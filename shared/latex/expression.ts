@@ -341,6 +341,7 @@ export class SideParser {
         return { type: 'variable', name: 'x', index: alphabet.letters.indexOf(n.v) + 1 }
       }
       if (alphabet?.kind === 'secondZ' && n.v === 'z') return this.variable('y', 'z')
+      if (alphabet?.kind === 'indexed' && n.v === alphabet.letter && isCh(this.peek(), '_')) return this.variable('x', n.v)
       switch (n.v) {
         case 'x':
         case 'y':
