@@ -204,44 +204,73 @@ function isTuple(nodes: MathNode[]): boolean {
 }
 
 /**
- * Around a math region: the letters its sentence makes general ("for every $w$", "$w \mapsto
- * w^{-1}$", "$\forall w$"), whose bindings then do not apply, and whether the paragraph is
- * about a group (S_n, transpositions, Coxeter or braid relations) or plainly about Schur functions.
+ * Around a math region: the letters its sentence makes general ("for every $w$", "$w \\mapsto
+ * w^{-1}$", "$\\forall w$"), whose bindings then do not apply; whether the paragraph is about a
+ * group (S_n, transpositions, Coxeter or braid relations) or plainly about Schur functions; and
+ * whether the sentence first gives variables values. Each is read from the masked text (comments
+ * and code blanked) only when a rule asks, since most regions need none of them.
  */
 export interface Surroundings {
-  generalLetters: ReadonlySet<string>
-  topic: 'group' | 'schur' | undefined
+  readonly generalLetters: ReadonlySet<string>
+  readonly topic: 'group' | 'schur' | undefined
   /** The sentence sets variables to values first ("Using $x_1 = 1, x_2 = 2$ we get …"). */
-  substitution: boolean
+  readonly substitution: boolean
 }
 
 export const NO_SURROUNDINGS: Surroundings = { generalLetters: new Set(), topic: undefined, substitution: false }
 
 /** `$x_1 = 1`, `x_{2} = -y_2`, `, x_3 = 0`: a variable given a value in the math of a sentence. */
 const VARIABLE_SET = /(?:^|[$,;\s(])[xy]_\{?[0-9a-z]\}?\s*=\s*(?:-\s*)?(?:\d|[xy]_)/
-
 const QUANTIFIED = /(?:\bfor\s+(?:all|every|each|any)\s*\$\s*|\\forall\s*)([a-zA-Z]|\\[a-zA-Z]+)(?![a-zA-Z])/gi
 const MAPPED = /(?:^|[^\\a-zA-Z])([a-zA-Z]|\\[a-zA-Z]+)\s*\\mapsto/g
 const GROUP_WORDS = /\b(groups?|transpositions?|coxeter|braid|reflections?|generators?|relations?|permutations?|reduced words?|weyl)\b|\bS_\{?[0-9n]|\\mathfrak\{?S\}?_\{?[n0-9]\}?\b/i
 const SCHUR_WORDS = /\bschur\b|\bsymmetric functions?\b/i
 
-/**
- * What the text around position `pos` (a region's start) says: the sentence before it, and the
- * paragraph before it, read in the masked text (comments and code blanked).
- */
+/** The surroundings of the region starting at `pos`: the sentence and the paragraph before it. */
 export function surroundingsOf(masked: string, pos: number): Surroundings {
-  const from = Math.max(0, pos - 600)
-  let paragraph = masked.slice(from, pos)
-  const par = paragraph.lastIndexOf('\n\n')
-  if (par >= 0) paragraph = paragraph.slice(par + 2)
+  let paragraphText: string | undefined
+  let sentenceText: string | undefined
+  const paragraph = () => {
+    if (paragraphText === undefined) {
+      paragraphText = masked.slice(Math.max(0, pos - 600), pos)
+      const par = paragraphText.lastIndexOf('\n\n')
+      if (par >= 0) paragraphText = paragraphText.slice(par + 2)
+    }
+    return paragraphText
+  }
   // The sentence: back to the last full stop followed by a space (math rarely holds one).
-  const stop = Math.max(paragraph.lastIndexOf('. '), paragraph.lastIndexOf('.\n'))
-  const sentence = stop >= 0 ? paragraph.slice(stop + 2) : paragraph
-  const generalLetters = new Set<string>()
-  for (const m of sentence.matchAll(QUANTIFIED)) generalLetters.add(m[1]!)
-  for (const m of sentence.matchAll(MAPPED)) generalLetters.add(m[1]!)
-  const topic = GROUP_WORDS.test(paragraph) ? 'group' : SCHUR_WORDS.test(paragraph) ? 'schur' : undefined
-  return { generalLetters, topic, substitution: VARIABLE_SET.test(sentence) }
+  const sentence = () => {
+    if (sentenceText === undefined) {
+      const text = paragraph()
+      const stop = Math.max(text.lastIndexOf('. '), text.lastIndexOf('.\n'))
+      sentenceText = stop >= 0 ? text.slice(stop + 2) : text
+    }
+    return sentenceText
+  }
+  let letters: Set<string> | undefined
+  let topic: { value: 'group' | 'schur' | undefined } | undefined
+  let substitution: boolean | undefined
+  return {
+    get generalLetters() {
+      if (!letters) {
+        letters = new Set<string>()
+        const text = sentence()
+        if (text.includes('mapsto') || /for|forall/i.test(text)) {
+          for (const m of text.matchAll(QUANTIFIED)) letters.add(m[1]!)
+          for (const m of text.matchAll(MAPPED)) letters.add(m[1]!)
+        }
+      }
+      return letters
+    },
+    get topic() {
+      topic ??= { value: GROUP_WORDS.test(paragraph()) ? 'group' : SCHUR_WORDS.test(paragraph()) ? 'schur' : undefined }
+      return topic.value
+    },
+    get substitution() {
+      substitution ??= VARIABLE_SET.test(sentence())
+      return substitution
+    },
+  }
 }
 
 export interface StepToJudge {
@@ -271,19 +300,19 @@ export function judgeStep(step: StepToJudge): StepJudgement {
   if (isInsideSet(step.lhsNodes, step.rhsNodes)) return { type: 'notRead', reason: 'a condition inside a set {… : …} or a part of ⟨…⟩, not a claim' }
   if (isTuple(step.lhsNodes) || isTuple(step.rhsNodes)) return { type: 'notRead', reason: 'a tuple (…, …) is a sequence of values, not an object Scholium checks' }
   const surroundings = step.surroundings ?? NO_SURROUNDINGS
-  const general = [...l.used.keys(), ...r.used.keys()].find(name => surroundings.generalLetters.has(name))
+  const general = l.used.size || r.used.size ? [...l.used.keys(), ...r.used.keys()].find(name => surroundings.generalLetters.has(name)) : undefined
   if (general) return { type: 'notRead', reason: `${general} stands for any ${general} in this sentence (for every ${general}, ${general} ↦ …): a general statement, not the bound example` }
   // After "Using $x_1 = 1$" in the same sentence, an object set equal to a value is evaluated there.
-  if (surroundings.substitution && ((l.ok && containsObject(l.expr)) || (r.ok && containsObject(r.expr)))) {
+  if (((l.ok && containsObject(l.expr)) || (r.ok && containsObject(r.expr))) && surroundings.substitution) {
     return { type: 'notRead', reason: 'the sentence first gives the variables values (x_i = …): the claim holds under that substitution, which is not read' }
   }
   // A word in the s_i is a product in the symmetric group unless the paragraph plainly speaks of Schur functions.
-  const groupWords = surroundings.topic !== 'schur'
-  if (groupWords && (isWordEqualToIdentity(l, step.rhsNodes) || isWordEqualToIdentity(r, step.lhsNodes))) {
+  const groupWords = () => surroundings.topic !== 'schur'
+  if ((isWordEqualToIdentity(l, step.rhsNodes) || isWordEqualToIdentity(r, step.lhsNodes)) && groupWords()) {
     return { type: 'notRead', reason: GROUP_WORD_REASON }
   }
   if (l.ok && r.ok) {
-    if (groupWords && isGroupWordEquation(l.expr, r.expr)) return { type: 'notRead', reason: GROUP_WORD_REASON }
+    if (isGroupWordEquation(l.expr, r.expr) && groupWords()) return { type: 'notRead', reason: GROUP_WORD_REASON }
     if (isSubstitution(l.expr, r.expr)) return { type: 'silent' }
     if (isSymmetricEqualToNumber(l.expr, r.expr)) return { type: 'silent' }
     if (containsObject(l.expr) || containsObject(r.expr)) return { type: 'claim' }

@@ -4,6 +4,7 @@
 import { describe, expect, it } from 'vitest'
 import { parseArgumentSpec } from '../../../shared/latex/macros'
 import { tokenize } from '../../../shared/latex/tokens'
+import { checkManuscript } from '../../../shared/check'
 import { oneLine, readSnippet, ready } from './helpers'
 
 const schubert = (...entries: number[]) => ({ type: 'schubert', perm: oneLine(...entries), variant: 'single' })
@@ -65,7 +66,7 @@ describe('e and E: embellishments', () => {
 
 describe('v: verbatim contents are code, never math', () => {
   it('swallows the verbatim argument, with any delimiter or braces, and keeps reading after it', () => {
-    const tex = '\\NewDocumentCommand{\\code}{v}{\\texttt{#1}}\nRun \\code|s_1 = 2$x$| and \\code{e_2 = 0}, then $\\mathfrak{S}_{213} = x_1$.'
+    const tex = '\\NewDocumentCommand{\\code}{v}{\\texttt{#1}}\nRun \\code|$\\mathfrak{S}_{21} = 1$| and \\code{$e_2 = 0$}, then $\\mathfrak{S}_{213} = x_1$.'
     const r = readSnippet(tex)
     expect(r.claims.map(c => c.source)).toEqual(['\\mathfrak{S}_{213} = x_1'])
     expect(r.notRead).toEqual([])
@@ -83,8 +84,9 @@ describe('b: the body of an environment', () => {
     expect(lhsOf(tex)).toEqual([schubert(2, 1, 3), schubert(1, 3, 2)])
   })
   it('keeps a nested environment of the same name inside the body', () => {
-    const tex = '\\NewDocumentEnvironment{wrap}{b}{#1}{}\n\\begin{wrap}\\begin{wrap}$\\mathfrak{S}_{213} = x_1$\\end{wrap}\\end{wrap} $\\mathfrak{S}_{132} = x_2$'
-    expect(ready(readSnippet(tex)).map(c => c.source)).toEqual(['\\mathfrak{S}_{213} = x_1', '\\mathfrak{S}_{132} = x_2'])
+    const tex = '\\NewDocumentEnvironment{plus}{b}{#1 + x_2}{}\n\\[ \\begin{plus}\\begin{plus}x_1\\end{plus}\\end{plus} = \\mathfrak{S}_{132} + x_2 \\]'
+    // x_1 + x_2 + x_2 = \mathfrak{S}_{132} + x_2 holds only if the inner environment is expanded inside the outer body.
+    expect(checkManuscript({ files: { 'snippet.tex': tex } }).claims.map(c => c.verdict)).toEqual(['verified'])
   })
   it('accepts b only as an environment\'s last argument', () => {
     expect(parseArgumentSpec(tokenize('b m'), { environment: true })).toEqual({ unread: expect.stringMatching(/"b"/) })
