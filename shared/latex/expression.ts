@@ -21,7 +21,15 @@ import { alphabetOfList, declaredAlphabet, type Alphabet } from './notation/alph
 import { UNREAD_MACRO_PREFIX, unreadMacroReason } from './macros'
 import { readGrassmannianSpace } from './notation/grassmannian'
 
-export class ParseFail extends Error {}
+/** Why a side could not be read. It is control flow, thrown and caught often, so it records no stack trace. */
+export class ParseFail extends Error {
+  constructor(message: string) {
+    const limit = Error.stackTraceLimit
+    Error.stackTraceLimit = 0
+    super(message)
+    Error.stackTraceLimit = limit
+  }
+}
 
 export interface ParseContext {
   bindings: ReadonlyMap<string, ContextValue>
