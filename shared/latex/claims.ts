@@ -14,7 +14,7 @@ import type { NotationObject, TagDirective } from './tags'
 import { MathSyntaxError, buildMathTree, renderNodes, spanOf, type MathNode, type Statement } from './math-tree'
 import { SideParser, bindableSymbol, readPartition, readPermutation, ParseFail, type ParseContext, type SideResult } from './expression'
 import { classifyClaim, containsObject, exprTypes } from './classify'
-import { isDefiningLeadIn, judgeStep, proseBefore, shortReason } from './precision'
+import { isDefiningLeadIn, judgeStep, proseBefore, shortReason, surroundingsOf, type Surroundings } from './precision'
 import type { MathRegion, SourceFile } from './regions'
 import { readStatements, type ReadStatement } from './statements'
 import type { BindingScopes } from './bindings'
@@ -98,6 +98,8 @@ interface StepPlace {
   regionLine: number
   /** The prose before inline math introduces a setting or definition ("Setting $x_2 = -y_2$"). */
   definingLeadIn: boolean
+  /** What the sentence and paragraph before the region say (letters made general, group or Schur topic). */
+  surroundings: Surroundings
 }
 
 /** A step whose place is not its sides' (a table row: the header gives the left side). */
@@ -146,7 +148,8 @@ export class ClaimReader {
     this.state.noteSetting?.(region, tree)
     const regionLine = positionAt(region.file.starts, region.pos).line
     const definingLeadIn = !region.display && isDefiningLeadIn(proseBefore(region.file.masked, region.pos))
-    this.readStatementList(readStatements(tree, region.env), { region, regionLine, definingLeadIn })
+    const surroundings = surroundingsOf(region.file.masked, region.pos)
+    this.readStatementList(readStatements(tree, region.env), { region, regionLine, definingLeadIn, surroundings })
   }
 
   /**
@@ -163,12 +166,13 @@ export class ClaimReader {
       return false
     }
     const region: MathRegion = { file: grid.file, tokens: [], pos: grid.pos, end: grid.end, display: grid.display }
+    const surroundings = surroundingsOf(grid.file.masked, grid.pos)
     // In document order: the table's claims, its unread rows, and the math of its other cells.
     const actions: { pos: number; run: () => void }[] = [
       ...reading.steps.map(step => ({
         pos: step.pos,
         run: () => {
-          const place: StepPlace = { region, label: undefined, regionLine: positionAt(grid.file.starts, step.pos).line, definingLeadIn: false }
+          const place: StepPlace = { region, label: undefined, regionLine: positionAt(grid.file.starts, step.pos).line, definingLeadIn: false, surroundings }
           this.emitStep({ place, lhs: step.lhs, rhs: step.rhs, relation: EQUALS(step.pos), continued: false, placement: step })
         },
       })),
@@ -294,7 +298,7 @@ export class ClaimReader {
 
   /** Turn one step into a claim, a not-read entry, or nothing; returns the claim's kind. */
   private emitStep(input: StepInput): ClaimKind | undefined {
-    const { place: { region, label, regionLine, definingLeadIn }, lhs, rhs, relation, continued, chainKind, placement } = input
+    const { place: { region, label, regionLine, definingLeadIn, surroundings }, lhs, rhs, relation, continued, chainKind, placement } = input
     const file = region.file
     const lhsSpan = spanOf(lhs)
     const rhsSpan = spanOf(rhs)
@@ -308,7 +312,7 @@ export class ClaimReader {
     const claimTag = tags.find(d => d.type === 'claim') as { type: 'claim'; kind?: ClaimKind } | undefined
     const skip = tags.some(d => d.type === 'skip')
     if (relation.rel !== '=' && !claimTag) return undefined
-    let judgement = judgeStep({ lhs: lhsRead, rhs: rhsRead, lhsNodes: lhs, rhsNodes: rhs, definingLeadIn, inObjectChain: !!chainKind })
+    let judgement = judgeStep({ lhs: lhsRead, rhs: rhsRead, lhsNodes: lhs, rhsNodes: rhs, definingLeadIn, inObjectChain: !!chainKind, surroundings })
     if (relation.rel !== '=') judgement = { type: 'unsupported', reason: `the relation ${relation.name} is not checked; only equalities are` }
     else if (judgement.type === 'claim' && lhsRead.ok && rhsRead.ok && settingForClaim(lhsRead.expr, rhsRead.expr, ctx.grassmannian) === 'mixed') {
       judgement = { type: 'notRead', reason: 'σ_λ next to polynomials or other objects (a presentation of the ring?) is not read' }
