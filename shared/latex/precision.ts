@@ -7,7 +7,7 @@
 import type { Expr } from '../types/claims'
 import type { SideResult } from './expression'
 import { containsObject, exprTypes } from './classify'
-import { isChar, type MathNode } from './math-tree'
+import { isChar, renderNodes, type MathNode } from './math-tree'
 import { isUnreadMacroReason } from './macros'
 
 /** What to do with one `lhs = rhs` step before any claim is made. */
@@ -214,13 +214,14 @@ export interface Surroundings {
   readonly generalLetters: ReadonlySet<string>
   readonly topic: 'group' | 'schur' | undefined
   /** The sentence sets variables to values first ("Using $x_1 = 1, x_2 = 2$ we get …"). */
-  readonly substitution: boolean
+  /** The variables the sentence gives values before the math (`x_3 = 0` gives "x_3"), empty when none. */
+  readonly substituted: ReadonlySet<string>
 }
 
-export const NO_SURROUNDINGS: Surroundings = { generalLetters: new Set(), topic: undefined, substitution: false }
+export const NO_SURROUNDINGS: Surroundings = { generalLetters: new Set(), topic: undefined, substituted: new Set() }
 
 /** `$x_1 = 1`, `x_{2} = -y_2`, `, x_3 = 0`: a variable given a value in the math of a sentence. */
-const VARIABLE_SET = /(?:^|[$,;\s(])[xy]_\{?[0-9a-z]\}?\s*=\s*(?:-\s*)?(?:\d|[xy]_)/
+const VARIABLE_SET = /(?:^|[$,;\s(])([xy])_\{?([0-9a-z])\}?\s*=\s*(?:-\s*)?(?:\d|[xy]_)/g
 const QUANTIFIED = /(?:\bfor\s+(?:all|every|each|any)\s*\$\s*|\\forall\s*)([a-zA-Z]|\\[a-zA-Z]+)(?![a-zA-Z])/gi
 const MAPPED = /(?:^|[^\\a-zA-Z])([a-zA-Z]|\\[a-zA-Z]+)\s*\\mapsto/g
 const GROUP_WORDS = /\b(groups?|transpositions?|coxeter|braid|reflections?|generators?|relations?|permutations?|reduced words?|weyl)\b|\bS_\{?[0-9n]|\\mathfrak\{?S\}?_\{?[n0-9]\}?\b/i
@@ -249,7 +250,7 @@ export function surroundingsOf(masked: string, pos: number): Surroundings {
   }
   let letters: Set<string> | undefined
   let topic: { value: 'group' | 'schur' | undefined } | undefined
-  let substitution: boolean | undefined
+  let substituted: Set<string> | undefined
   return {
     get generalLetters() {
       if (!letters) {
@@ -266,11 +267,23 @@ export function surroundingsOf(masked: string, pos: number): Surroundings {
       topic ??= { value: GROUP_WORDS.test(paragraph()) ? 'group' : SCHUR_WORDS.test(paragraph()) ? 'schur' : undefined }
       return topic.value
     },
-    get substitution() {
-      substitution ??= VARIABLE_SET.test(sentence())
-      return substitution
+    get substituted() {
+      substituted ??= new Set([...sentence().matchAll(VARIABLE_SET)].map(m => `${m[1]}_${m[2]}`))
+      return substituted
     },
   }
+}
+
+/**
+ * Whether a substitution earlier in the sentence can change the claim. Only a claim that lists its
+ * variables, `e_3(x_1,x_2) = 0` after "Setting $x_3 = 0$", and names none of the substituted ones
+ * is untouched; one with no argument list (`\mathfrak{S}_{132} = 3`) lives in every variable.
+ */
+function touchedBySubstitution(step: StepToJudge, substituted: ReadonlySet<string>): boolean {
+  if (substituted.size === 0) return false
+  const text = renderNodes([...step.lhsNodes, ...step.rhsNodes]).replace(/[{}\s]/g, '')
+  if (!/\((?:[a-z]_|[a-z][,;|)])/.test(text)) return true
+  return [...substituted].some(variable => text.includes(variable))
 }
 
 export interface StepToJudge {
@@ -303,7 +316,7 @@ export function judgeStep(step: StepToJudge): StepJudgement {
   const general = l.used.size || r.used.size ? [...l.used.keys(), ...r.used.keys()].find(name => surroundings.generalLetters.has(name)) : undefined
   if (general) return { type: 'notRead', reason: `${general} stands for any ${general} in this sentence (for every ${general}, ${general} ↦ …): a general statement, not the bound example` }
   // After "Using $x_1 = 1$" in the same sentence, an object set equal to a value is evaluated there.
-  if (((l.ok && containsObject(l.expr)) || (r.ok && containsObject(r.expr))) && surroundings.substitution) {
+  if (((l.ok && containsObject(l.expr)) || (r.ok && containsObject(r.expr))) && touchedBySubstitution(step, surroundings.substituted)) {
     return { type: 'notRead', reason: 'the sentence first gives the variables values (x_i = …): the claim holds under that substitution, which is not read' }
   }
   // A word in the s_i is a product in the symmetric group unless the paragraph plainly speaks of Schur functions.

@@ -137,6 +137,12 @@ describe('a substitution stated earlier in the sentence', () => {
     expect(statuses('Put $x_1 = 1$. Then $\\mathfrak{S}_{132} = x_1 + x_2$.')).toEqual(['ready'])
     expect(statuses('For $n = 3$ we get $\\mathfrak{S}_{132} = x_1 + x_2$.')).toEqual(['ready'])
   })
+  // Regression (long-paper/paper.tex:3720): "Setting $x_3 = 0$ …, and then $e_3(x_1,x_2) = 0$" was
+  // left unread although the claim lists its variables and x_3 is not one of them.
+  it('reads a claim whose argument list names none of the substituted variables', () => {
+    expect(statuses('Setting $x_3 = 0$ gives two variables, and then $e_3(x_1,x_2) = 0$.')).toEqual(['ready'])
+    notReadOnly('Setting $x_2 = 0$ gives one variable, and then $e_2(x_1,x_2) = 0$.', /substitution/)
+  })
 })
 
 describe('the held-back trap of the styles corpus', () => {
