@@ -24,7 +24,8 @@ import { PackedRangeExceeded, packedKeys, packedTransitionProduct } from './pack
 
 export type SchubertCombination = Map<string, Coefficient>
 
-const keyOrder = new Intl.Collator()
+// Made on first use: creating a collator loads ICU data, a few ms at the start of every process.
+let keyOrder: Intl.Collator | undefined
 
 /** Sorted list form of a combination: longest permutations first, then by one-line. */
 export function combinationEntries(c: SchubertCombination): { permutation: Permutation; coefficient: Coefficient }[] {
@@ -35,7 +36,7 @@ export function combinationEntries(c: SchubertCombination): { permutation: Permu
       const permutation = Permutation.fromOneLine(k === '' ? [] : k.split(',').map(Number))
       return { permutation, coefficient, length: permutation.length(), key: permutation.key }
     })
-    .sort((a, b) => b.length - a.length || keyOrder.compare(a.key, b.key))
+    .sort((a, b) => b.length - a.length || (keyOrder ??= new Intl.Collator()).compare(a.key, b.key))
     .map(({ permutation, coefficient }) => ({ permutation, coefficient }))
 }
 
