@@ -13,6 +13,7 @@ import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { checkManuscript } from '../shared/check'
+import { reproduceScript } from '../shared/check/reproduce-script'
 import type { Report } from '../shared/types/report'
 import { buildManuscript } from './lib/synthetic-manuscript'
 
@@ -62,6 +63,11 @@ try {
   const verdicts = (r: Report) => JSON.stringify(r.claims.map(c => [c.file, c.line, c.verdict]))
   const same = verdicts(inProcess) === verdicts(viaCli) && verdicts(coldReport) === verdicts(viaCli)
   console.log(same ? 'Both paths give the same verdicts.' : 'WARNING: the two paths disagree.')
+  // What the stored document weighs, against the same report with a whole script in every claim (version 1's form).
+  const library = inProcess.reproduceLibrary
+  const whole = { ...inProcess, reproduceLibrary: undefined, claims: inProcess.claims.map(c => c.reproduce ? { ...c, reproduce: reproduceScript(library, c) } : c) }
+  const kib = (value: unknown) => `${Math.round(Buffer.byteLength(JSON.stringify(value)) / 1024).toLocaleString('en')} KiB`
+  console.log(`Report JSON: ${kib(inProcess)} stored (definitions once, ${inProcess.claims.filter(c => c.reproduce).length} snippets); ${kib(whole)} with a whole script in every claim.`)
   if (inProcess.summary.claims !== CLAIMS) console.log(`WARNING: ${inProcess.summary.claims} claims found, ${CLAIMS} written.`)
   if (!same || inProcessMs >= GOAL_MS || coldMs >= GOAL_MS || cliMs >= GOAL_MS) process.exitCode = 1
 }

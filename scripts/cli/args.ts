@@ -2,7 +2,7 @@
  * Command-line arguments of `scholium check`, parsed without a library so that every
  * refusal has its own clear message.
  *
- *   scholium check <source> [--format text|json|junit|annotations] [--json] [--convention <id>]… [--main <file>] [--fix <out.patch>]
+ *   scholium check <source> [--format text|json|junit|annotations] [--json] [--convention <id>]… [--main <file>] [--fix <out.patch>] [--script-for <claim id>]
  *
  * A parse never throws: it gives either the options or a usage problem (exit code 2).
  */
@@ -25,6 +25,8 @@ export interface CheckCommand {
   showUnread?: boolean
   /** Write the suggested corrections to this file as a unified diff (`git apply` reads it). */
   fix?: string
+  /** Print this claim's runnable SymPy script instead of the report. */
+  scriptFor?: string
 }
 
 export type ParsedArguments =
@@ -41,7 +43,7 @@ arxiv:<id> (e.g. arxiv:2401.01234v2, arxiv:math/0601001) fetches the e-print fro
 NUXT_ARXIV_BASE_URL (default https://arxiv.org).
 
 Options:
-  --format <name>        how to print the report: text (default), json (schema scholium.report/1),
+  --format <name>        how to print the report: text (default), json (schema scholium.report/2),
                          junit (JUnit XML, one test case per claim) or annotations (one
                          ::error file=…,line=…:: line per failing claim, for CI)
   --json                 the same as --format json
@@ -52,6 +54,8 @@ Options:
                          per corrected claim, paths relative to here (apply with git apply)
   --show-unread          list the math Scholium did not read (its count is always printed; never
                          part of the verdicts or the exit status)
+  --script-for <id>      print the self-contained SymPy script that recomputes one claim (its id
+                         from the report, e.g. main.tex:12:1) instead of the report
   -h, --help             show this text
   --version              print the version of the engine
 
@@ -81,6 +85,7 @@ export function parseArguments(argv: readonly string[]): ParsedArguments {
   let main: string | undefined
   let showUnread = false
   let fix: string | undefined
+  let scriptFor: string | undefined
   let onlyPositional = false
   for (let i = 1; i < argv.length; i++) {
     const arg = argv[i]!
@@ -138,6 +143,12 @@ export function parseArguments(argv: readonly string[]): ParsedArguments {
         if (inlineValue !== undefined) return { command: 'problem', message: '--show-unread takes no value.' }
         showUnread = true
         break
+      case '--script-for': {
+        const value = takeValue()
+        if (value === null || value === '') return { command: 'problem', message: '--script-for needs a claim id, e.g. --script-for main.tex:12:1.' }
+        scriptFor = value
+        break
+      }
       default:
         return { command: 'problem', message: `unknown option "${name}"; see scholium --help.` }
     }
@@ -153,5 +164,5 @@ export function parseArguments(argv: readonly string[]): ParsedArguments {
     if (previous !== undefined && previous !== id) return { command: 'problem', message: `conventions "${previous}" and "${id}" choose differently on the same axis (${axis}); give one.` }
     fixed[axis] = id as ConventionId
   }
-  return { command: 'check', source: sources[0]!, format: format ?? 'text', fixed: fixed as Partial<ConventionSet>, ...(main !== undefined ? { main } : {}), ...(showUnread ? { showUnread } : {}), ...(fix !== undefined ? { fix } : {}) }
+  return { command: 'check', source: sources[0]!, format: format ?? 'text', fixed: fixed as Partial<ConventionSet>, ...(main !== undefined ? { main } : {}), ...(showUnread ? { showUnread } : {}), ...(fix !== undefined ? { fix } : {}), ...(scriptFor !== undefined ? { scriptFor } : {}) }
 }

@@ -6,6 +6,7 @@
  * 2 bad command or input; 3 an internal failure.
  */
 import { checkManuscript, correctionsPatch } from '../../shared/check'
+import { reproduceScript } from '../../shared/check/reproduce-script'
 import { ENGINE_VERSION } from '../../shared/math'
 import type { Report } from '../../shared/types/report'
 import { parseArguments, USAGE, type CheckCommand } from './args'
@@ -74,8 +75,19 @@ async function runCheck(command: CheckCommand, io: CliIo): Promise<number> {
     }
     io.err(`scholium: ${command.fix}: ${fixed} correction${fixed === 1 ? '' : 's'} written${unfixed ? `; ${unfixed} mismatch${unfixed === 1 ? '' : 'es'} with no automatic correction (see the report)` : ''}.\n`)
   }
+  if (command.scriptFor !== undefined) return printScript(report, command.scriptFor, io)
   io.out(formatReport(report, command, source, io.colour))
   return report.summary.mismatch > 0 || report.summary.error > 0 ? EXIT.failed : EXIT.ok
+}
+
+/** `--script-for <id>`: one claim's runnable SymPy script, joined from its snippet and the report's library. */
+function printScript(report: Report, claimId: string, io: CliIo): number {
+  const claim = report.claims.find(c => c.id === claimId)
+  if (!claim) { io.err(`scholium: --script-for ${claimId}: no claim with that id (ids look like main.tex:12:1).\n`); return EXIT.badInput }
+  const script = reproduceScript(report.reproduceLibrary, claim)
+  if (script === null) { io.err(`scholium: --script-for ${claimId}: this claim has no SymPy script (only verified or mismatched claims of kinds SymPy can restate do).\n`); return EXIT.badInput }
+  io.out(script)
+  return EXIT.ok
 }
 
 function formatReport(report: Report, command: CheckCommand, source: SourceFiles, colour: boolean): string {

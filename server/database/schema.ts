@@ -3,9 +3,12 @@
  * migrations; repositories turn rows into camelCase domain objects.
  */
 import type { ColumnType, Generated, Insertable, Selectable } from 'kysely'
+import type { Report } from '../../shared/types/report'
 
 type Timestamp = ColumnType<Date, Date | string | undefined, Date | string>
 type Json<T> = ColumnType<T, string | undefined, string>
+/** Read only: the database computes it (a generated column). */
+type Derived<T> = ColumnType<T, never, never>
 
 export interface UsersTable {
   id: Generated<string>
@@ -110,7 +113,13 @@ export interface CheckRunsTable {
   claims_total: number | null
   claims_done: Generated<number>
   timings: Json<Record<string, number>>
-  summary: Json<Record<string, unknown>>
+  /**
+   * The whole report of a finished run (null before): one document, the same shape the CLI prints.
+   * Read it through server/repositories/check-runs.ts `loadRunReport`, which validates it.
+   */
+  report: Json<Report | null>
+  /** The report's head, derived by the database: the report without claims, macros and script library. */
+  summary: Derived<Record<string, unknown>>
   error: string | null
   attempts: Generated<number>
   requested_by: string | null
@@ -123,6 +132,10 @@ export interface CheckRunsTable {
   what_if: Generated<boolean>
 }
 
+/**
+ * One row per claim of a finished run: only an index (threads, referee notes and comparisons join
+ * on it); the claim itself is in check_runs.report.
+ */
 export interface ClaimsTable {
   id: Generated<string>
   check_run_id: string
@@ -134,10 +147,9 @@ export interface ClaimsTable {
   kind: string
   label: string | null
   content_key: string
+  /** The claim's id in the report (`main.tex:30:1`). */
+  report_id: string
   verdict: 'verified' | 'mismatch' | 'unsupported' | 'error' | null
-  holds_under: Json<string[]>
-  computed: string | null
-  details: Json<Record<string, unknown>>
   checked_at: Timestamp | null
 }
 
@@ -232,5 +244,7 @@ export interface Database {
 }
 
 export type CheckRunRow = Selectable<CheckRunsTable>
+/** A check run row without its report document, which only `loadRunReport` reads. */
+export type CheckRunHead = Omit<CheckRunRow, 'report'>
 export type UserRow = Selectable<UsersTable>
 export type NewUser = Insertable<UsersTable>

@@ -5,7 +5,8 @@
  * Used by the worker process, so it takes its settings from the environment.
  */
 import type { Db } from '../database/connect'
-import { checkFinishedMail, type RunSummaryCounts } from './messages'
+import { verdictCountsOf } from '../../shared/types/report-schema'
+import { checkFinishedMail } from './messages'
 import { publicBaseUrlFromEnv, type MailSender } from './transport'
 
 export interface CheckMailSettings {
@@ -48,16 +49,9 @@ export async function mailIfLongRun(db: Db, settings: CheckMailSettings, checkRu
     to: run.email,
     manuscriptTitle: run.title,
     revisionNumber: run.number,
-    counts: summaryCounts(run.summary),
+    counts: verdictCountsOf(run.summary) ?? { claims: 0, verified: 0, mismatch: 0, unsupported: 0, error: 0 },
     link: `${settings.baseUrl}/revisions/${run.revisionId}`,
     seconds: Math.round(seconds),
   }))
   return 'sent'
-}
-
-// The run's stored summary is the report without its claims; the counts sit in its `summary`.
-function summaryCounts(stored: Record<string, unknown>): RunSummaryCounts {
-  const s = (stored.summary ?? {}) as Record<string, unknown>
-  const count = (key: string) => (typeof s[key] === 'number' ? s[key] : 0)
-  return { claims: count('claims'), verified: count('verified'), mismatch: count('mismatch'), unsupported: count('unsupported'), error: count('error') }
 }

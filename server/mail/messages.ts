@@ -3,6 +3,7 @@
  * are the ones stored in the database, links are absolute (`baseUrl` has no trailing slash).
  * No message ever names a referee.
  */
+import type { VerdictCounts } from '../../shared/types/editorial'
 import type { MailMessage } from './transport'
 
 /** The invitation to join a manuscript as a coauthor. */
@@ -38,7 +39,8 @@ export function passwordResetMail(input: { to: string, link: string, validMinute
   }
 }
 
-export interface RunSummaryCounts { claims: number, verified: number, mismatch: number, unsupported: number, error: number }
+/** Counts per verdict, as `verdictCountsOf` (shared/types/report-schema.ts) reads them. */
+export type RunSummaryCounts = VerdictCounts
 
 /** The notice that a long check run has finished, with its counts. */
 export function checkFinishedMail(input: { to: string, manuscriptTitle: string, revisionNumber: number, counts: RunSummaryCounts, link: string, seconds: number }): MailMessage {

@@ -5,7 +5,9 @@
  */
 import { sql } from 'kysely'
 import type { Db } from '../database/connect'
-import type { CheckRunRow } from '../database/schema'
+import type { CheckRunHead } from '../database/schema'
+import type { Report } from '../../shared/types/report'
+import { parseReport } from '../../shared/types/report-schema'
 
 export interface NewCheckRun {
   revisionId: string
@@ -18,15 +20,22 @@ export interface NewCheckRun {
 /** Inserts a queued run. Call inside the transaction that also sends its job (see requestCheckRun). */
 export async function insertCheckRun(db: Db, input: NewCheckRun): Promise<{ id: string }> {
   return db.insertInto('check_runs')
-    .values({ revision_id: input.revisionId, requested_by: input.requestedBy, conventions: JSON.stringify(input.conventions ?? {}), timings: '{}', summary: '{}', what_if: input.whatIf ?? false })
+    .values({ revision_id: input.revisionId, requested_by: input.requestedBy, conventions: JSON.stringify(input.conventions ?? {}), timings: '{}', what_if: input.whatIf ?? false })
     .returning('id')
     .executeTakeFirstOrThrow()
 }
 
+// Every column but the report document: progress polls and lists never read a whole report.
+// A column left out fails to compile where the rows are returned as CheckRunHead.
+const HEAD_COLUMNS = [
+  'id', 'revision_id', 'status', 'engine_version', 'conventions', 'claims_total', 'claims_done', 'timings', 'summary', 'error',
+  'attempts', 'requested_by', 'queued_at', 'started_at', 'finished_at', 'lease_owner', 'lease_until', 'what_if',
+] as const satisfies readonly (keyof CheckRunHead)[]
+
 /** The newest members' run row of each revision (what-if runs left out). */
-export async function latestRunRowsByRevision(db: Db, revisionIds: string[]): Promise<CheckRunRow[]> {
+export async function latestRunRowsByRevision(db: Db, revisionIds: string[]): Promise<CheckRunHead[]> {
   if (revisionIds.length === 0) return []
-  return db.selectFrom('check_runs').selectAll()
+  return db.selectFrom('check_runs').select(HEAD_COLUMNS)
     .distinctOn('revision_id')
     .where('revision_id', 'in', revisionIds)
     .where('what_if', '=', false)
@@ -34,9 +43,40 @@ export async function latestRunRowsByRevision(db: Db, revisionIds: string[]): Pr
     .execute()
 }
 
+/**
+ * The report route's question about a revision's runs, in one query: its newest members' run and
+ * the id of its newest finished members' run (the current report; what-if runs are neither).
+ * Undefined when the revision has no members' run.
+ */
+export async function latestAndReportRun(db: Db, revisionId: string): Promise<{ latest: CheckRunHead, reportRunId: string | null } | undefined> {
+  const row = await db.selectFrom('check_runs').select(HEAD_COLUMNS)
+    .select(eb => eb.selectFrom('check_runs as f').select('f.id')
+      .where('f.revision_id', '=', revisionId).where('f.status', '=', 'finished').where('f.what_if', '=', false)
+      .orderBy('f.finished_at', 'desc').limit(1).as('report_run_id'))
+    .where('revision_id', '=', revisionId).where('what_if', '=', false)
+    .orderBy('queued_at', 'desc').limit(1)
+    .executeTakeFirst()
+  if (!row) return undefined
+  const { report_run_id: reportRunId, ...latest } = row
+  return { latest, reportRunId: reportRunId ?? null }
+}
+
 /** One run row, or undefined. */
-export async function findCheckRun(db: Db, checkRunId: string): Promise<CheckRunRow | undefined> {
-  return db.selectFrom('check_runs').selectAll().where('id', '=', checkRunId).executeTakeFirst()
+export async function findCheckRun(db: Db, checkRunId: string): Promise<CheckRunHead | undefined> {
+  return db.selectFrom('check_runs').select(HEAD_COLUMNS).where('id', '=', checkRunId).executeTakeFirst()
+}
+
+/** The report of a finished run, validated (`parseReport` throws on a damaged document); null for any other run. */
+export async function loadRunReport(db: Db, checkRunId: string): Promise<Report | null> {
+  const run = await db.selectFrom('check_runs').select(['status', 'report']).where('id', '=', checkRunId).executeTakeFirst()
+  if (!run || run.status !== 'finished' || run.report === null) return null
+  return parseReport(run.report)
+}
+
+/** The newest finished members' run of a revision: the current report (what-if runs never are). */
+export async function latestFinishedRun(db: Db, revisionId: string): Promise<{ id: string } | undefined> {
+  return db.selectFrom('check_runs').select('id').where('revision_id', '=', revisionId).where('status', '=', 'finished').where('what_if', '=', false)
+    .orderBy('finished_at', 'desc').limit(1).executeTakeFirst()
 }
 
 /**
@@ -89,14 +129,14 @@ export async function lockIfLeased(trx: Db, checkRunId: string, workerId: string
   return row !== undefined
 }
 
-/** Marks the run finished with its report head and timings, releasing the lease. */
-export async function markFinished(trx: Db, checkRunId: string, input: { engineVersion: string, summary: unknown, claims: number, timings: Record<string, number> }): Promise<void> {
+/** Marks the run finished with its report and timings, releasing the lease. */
+export async function markFinished(trx: Db, checkRunId: string, input: { report: Report, timings: Record<string, number> }): Promise<void> {
   await trx.updateTable('check_runs').set({
     status: 'finished',
-    engine_version: input.engineVersion,
-    summary: JSON.stringify(input.summary),
-    claims_total: input.claims,
-    claims_done: input.claims,
+    engine_version: input.report.engine.version,
+    report: JSON.stringify(input.report),
+    claims_total: input.report.claims.length,
+    claims_done: input.report.claims.length,
     timings: JSON.stringify(input.timings),
     error: null,
     finished_at: new Date(),

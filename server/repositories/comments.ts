@@ -1,4 +1,3 @@
-import { sql } from 'kysely'
 import type { Db } from '../database/connect'
 import type { ClaimCommentView } from '#shared/types/discussion'
 
@@ -11,7 +10,7 @@ import type { ClaimCommentView } from '#shared/types/discussion'
 /** The claims of a run with the ids the report gives them and their content keys. */
 export async function listRunClaimKeys(db: Db, checkRunId: string): Promise<{ id: string, reportId: string, contentKey: string }[]> {
   return db.selectFrom('claims')
-    .select(['id', 'content_key as contentKey', sql<string>`details->>'id'`.as('reportId')])
+    .select(['id', 'content_key as contentKey', 'report_id as reportId'])
     .where('check_run_id', '=', checkRunId)
     .orderBy('ordinal')
     .execute()
@@ -22,7 +21,7 @@ export async function findRunClaimByReportId(db: Db, checkRunId: string, reportI
   return db.selectFrom('claims')
     .select(['id', 'content_key as contentKey'])
     .where('check_run_id', '=', checkRunId)
-    .where(sql<string>`details->>'id'`, '=', reportId)
+    .where('report_id', '=', reportId)
     .executeTakeFirst()
 }
 

@@ -7,7 +7,7 @@
 import { sql } from 'kysely'
 import type { Db } from '../database/connect'
 import type { RefereeClaimNote, ReviewClaimOption } from '#shared/types/editorial'
-import { latestFinishedRun } from './claims'
+import { latestFinishedRun } from './check-runs'
 
 /** A claim of one of the revision's runs, or undefined (another revision's claim, no such claim). */
 export async function findClaimOfRevision(db: Db, claimId: string, revisionId: string) {

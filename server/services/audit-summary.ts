@@ -8,17 +8,10 @@
  */
 import { sql } from 'kysely'
 import type { Db } from '../database/connect'
-import type { AuditEvent, AuditRun, AuditSummary, VerdictCounts } from '#shared/types/editorial'
+import type { AuditEvent, AuditRun, AuditSummary } from '#shared/types/editorial'
+import { verdictCountsOf } from '#shared/types/report-schema'
 import type { SubmissionGrant } from '../utils/access'
 import { listRevisionFiles } from '../repositories/revisions'
-
-/** Counts per verdict from a run's stored summary (`check_runs.summary.summary`); null when it has none. */
-export function verdictCountsOf(runSummary: unknown): VerdictCounts | null {
-  const s = (runSummary as { summary?: Record<string, unknown> } | null)?.summary
-  if (!s || typeof s.claims !== 'number') return null
-  const n = (key: string) => (typeof s[key] === 'number' ? s[key] : 0)
-  return { claims: n('claims'), verified: n('verified'), mismatch: n('mismatch'), unsupported: n('unsupported'), error: n('error') }
-}
 
 export async function auditSummary(db: Db, grant: SubmissionGrant): Promise<AuditSummary> {
   const [files, runs, events, roles] = await Promise.all([

@@ -16,13 +16,13 @@ import { MessageChannel } from 'node:worker_threads'
 import { CompiledQuery } from 'kysely'
 import type Piscina from 'piscina'
 import type { Db } from '../database/connect'
-import type { CheckRunRow } from '../database/schema'
+import type { CheckRunHead } from '../database/schema'
 import type { SourceStore } from '../storage/source-store'
 import type { ConventionSet } from '../../shared/types/conventions'
 import type { CheckRunView, CheckRunStatus } from '../../shared/types/api'
 import { replaceRunClaims } from '../repositories/claims'
 import {
-  findCheckRun, insertCheckRun, latestRunRowsByRevision, listQueuedRuns, loadRunSources, lockIfLeased, markAttemptFailed,
+  findCheckRun, insertCheckRun, latestAndReportRun, latestRunRowsByRevision, listQueuedRuns, loadRunSources, lockIfLeased, markAttemptFailed,
   markFinished, recordProgress, releaseDueRuns, renewLease, takeLease, type NewCheckRun,
 } from '../repositories/check-runs'
 import { anyLiveWorker } from '../repositories/workers'
@@ -65,13 +65,13 @@ export async function requestCheckRun(trx: Db, queue: CheckQueue, input: NewChec
  * so states derived from more than the column go here: a "running" run whose lease ran out
  * is not being checked by anyone, it waits to be taken again.
  */
-export function runStatus(row: Pick<CheckRunRow, 'status' | 'lease_until'>, now: Date = new Date()): CheckRunStatus {
+export function runStatus(row: Pick<CheckRunHead, 'status' | 'lease_until'>, now: Date = new Date()): CheckRunStatus {
   if (row.status === 'running' && row.lease_until !== null && row.lease_until < now) return 'queued'
   return row.status
 }
 
 /** A run row as the API shows it. `liveWorker`: whether any check worker is alive (server/repositories/workers.ts). */
-export function checkRunView(row: CheckRunRow, liveWorker = true): CheckRunView {
+export function checkRunView(row: CheckRunHead, liveWorker = true): CheckRunView {
   const status = runStatus(row)
   return {
     id: row.id,
@@ -90,7 +90,7 @@ export function checkRunView(row: CheckRunRow, liveWorker = true): CheckRunView 
 }
 
 // Worker liveness is looked up only when some run still waits, so finished reports cost no extra query.
-async function liveWorkerFor(db: Db, rows: CheckRunRow[]): Promise<boolean> {
+async function liveWorkerFor(db: Db, rows: CheckRunHead[]): Promise<boolean> {
   return rows.some(r => runStatus(r) === 'queued') ? anyLiveWorker(db) : true
 }
 
@@ -99,6 +99,13 @@ export async function latestRunsByRevision(db: Db, revisionIds: string[]): Promi
   const rows = await latestRunRowsByRevision(db, revisionIds)
   const live = await liveWorkerFor(db, rows)
   return new Map(rows.map(r => [r.revision_id, checkRunView(r, live)]))
+}
+
+/** A revision's newest run as the API shows it, and the id of the run whose report is current. */
+export async function revisionRunState(db: Db, revisionId: string): Promise<{ run: CheckRunView | null, reportRunId: string | undefined }> {
+  const found = await latestAndReportRun(db, revisionId)
+  if (!found) return { run: null, reportRunId: undefined }
+  return { run: checkRunView(found.latest, await liveWorkerFor(db, [found.latest])), reportRunId: found.reportRunId ?? undefined }
 }
 
 /** A run's progress and status, or null if there is no such run. */
@@ -133,7 +140,7 @@ export const RETRY_AFTER_SECONDS = 5
 
 /**
  * Runs one check run: take its lease, fetch the sources, check them in a worker thread,
- * and write every claim and the summary in one transaction, only while the lease is ours.
+ * and write the report and its claims index in one transaction, only while the lease is ours.
  * Exactly-once results from at-least-once delivery: the final write replaces the run's
  * claims wholesale. Never throws for a failed check: the outcome says what happened.
  */
@@ -175,12 +182,11 @@ export async function runCheck(deps: CheckRunDeps, checkRunId: string): Promise<
       channel.port1.close()
     }
 
-    const { claims, ...head } = result.report
     const written = await db.transaction().execute(async (trx) => {
       if (!await lockIfLeased(trx, checkRunId, workerId)) return false
-      await replaceRunClaims(trx, checkRunId, claims)
+      await replaceRunClaims(trx, checkRunId, result.report.claims)
       await deps.atStep?.('committing', checkRunId)
-      await markFinished(trx, checkRunId, { engineVersion: head.engine.version, summary: head, claims: claims.length, timings: { fetchMs, ...result.timings, totalMs: Date.now() - started } })
+      await markFinished(trx, checkRunId, { report: result.report, timings: { fetchMs, ...result.timings, totalMs: Date.now() - started } })
       return true
     })
     if (written) await runAfterFinished(deps, checkRunId)

@@ -10,7 +10,8 @@ import type { Db } from '../database/connect'
 import type { ClaimCommentView, ClaimThreadView, ComparedClaim, RevisionCommentsView, RevisionComparisonView } from '#shared/types/discussion'
 import { compareRevisionClaims } from '#shared/check/compare-revisions'
 import { appendAudit } from '../repositories/audit'
-import { claimContentKey, latestFinishedRun, loadRunReport } from '../repositories/claims'
+import { claimContentKey } from '../repositories/claims'
+import { latestFinishedRun, loadRunReport } from '../repositories/check-runs'
 import { findMemberComment, findRunClaimByReportId, insertMemberComment, listMemberComments, listRunClaimKeys } from '../repositories/comments'
 import { findRevision } from '../repositories/revisions'
 
@@ -61,10 +62,10 @@ export async function compareRevisions(db: Db, manuscript: { id: string, title: 
     const claims: ComparedClaim[] = report.claims.map(c => ({
       id: c.id, file: c.file, line: c.line, endLine: c.endLine, kind: c.kind, verdict: c.verdict, source: c.source, message: c.message, label: c.label ?? null, contentKey: claimContentKey(c),
     }))
-    return { ref: { id: revision.id, number: revision.number, checkRunId: run.id }, claims }
+    return { ref: { id: revision.id, number: revision.number, checkRunId: run.id }, claims, macros: report.macros ?? {} }
   }
   const from = await side(fromId)
   const to = await side(toId)
   const { entries, counts } = compareRevisionClaims(from.claims, to.claims)
-  return { manuscript, from: from.ref, to: to.ref, entries, counts }
+  return { manuscript, from: from.ref, to: to.ref, entries, counts, macros: { ...from.macros, ...to.macros } }
 }

@@ -1,4 +1,5 @@
 import type { Db } from '../database/connect'
+import { chooseMainFile } from '../../shared/latex'
 import type { UploadErrorCode } from '#shared/types/uploads'
 import { insertRevisionWithFiles, isStorageKeyReferenced, type StoredFile } from '../repositories/revisions'
 import { requestCheckRun } from './check-runs'
@@ -19,7 +20,8 @@ export type UploadedPart = Extract<UploadedFile, { data: Buffer }>
  */
 export async function createRevision(db: Db, input: { manuscriptId: string, userId: string, parts: UploadedFile[], note: string, conventions: Record<string, string> }) {
   const files = await readOrRefuse(input.parts)
-  const mainFile = guessMainFile(files)
+  // The reader's own rule, decided once here and stored; the worker hands it back to the reader.
+  const mainFile = chooseMainFile(Object.fromEntries(files.map(f => [f.path, f.bytes]))) ?? null
   const createdKeys: string[] = []
   const stored: StoredFile[] = []
   try {
@@ -92,14 +94,6 @@ const REFUSAL_MESSAGES: Record<UploadRefusalCode, string> = {
   'mixed-upload': 'Send either one archive or plain files, not both',
   'duplicate-path': 'Two files in the upload have the same path',
   'no-tex': 'The upload contains no .tex file',
-}
-
-/** The file with \documentclass, else the only .tex file; the reader may still be told otherwise. */
-export function guessMainFile(files: { path: string, bytes: Uint8Array }[]): string | null {
-  const tex = files.filter(f => f.path.toLowerCase().endsWith('.tex'))
-  const withClass = tex.filter(f => /\\documentclass\b/.test(Buffer.from(f.bytes).toString('latin1')))
-  if (withClass.length > 0) return [...withClass].sort((a, b) => a.path.split('/').length - b.path.split('/').length)[0]!.path
-  return tex.length === 1 ? tex[0]!.path : null
 }
 
 async function removeUnreferenced(db: Db, keys: string[]): Promise<void> {

@@ -46,6 +46,19 @@ export async function queryAs<T>(event: H3Event, schema: ZodType<T>): Promise<T>
 /** Route parameters `{ id }` where the id is a UUID: `await routeParamsAs(event, IdParams)`. */
 export const IdParams = z.object({ id: z.string().uuid() })
 
+/**
+ * Route parameters that are all UUIDs, validated through getValidatedRouterParams with a UUID
+ * schema. One that is not a UUID names nothing that exists, so the answer is 404, as for an id
+ * the caller may not see (never 400, which would tell the two apart).
+ * Example: `const { id, userId } = await idParamsAs(event, 'id', 'userId')`
+ */
+export async function idParamsAs<K extends string>(event: H3Event, ...names: K[]): Promise<Record<K, string>> {
+  const schema = z.object(Object.fromEntries(names.map(n => [n, z.string().uuid()])) as Record<K, z.ZodString>)
+  const parsed = await getValidatedRouterParams(event, params => schema.safeParse(params))
+  if (!parsed.success) fail(404, 'not-found', 'Nothing is here')
+  return parsed.data as Record<K, string>
+}
+
 function orInvalid<T>(parsed: { success: true, data: T } | { success: false, error: ZodError }): T {
   if (parsed.success) return parsed.data
   fail(400, 'invalid-input', 'The request is not valid', { fields: fieldErrors(parsed.error) })

@@ -15,7 +15,7 @@ import { REPORT_SCHEMA, type Report, type ReportClaim } from '../types/report'
 import { evaluateClaim, type ClaimEvaluation } from './claim'
 import { decideClaim, inferConventions } from './decide'
 import type { EngineMemo } from './evaluate'
-import { reproduceScript } from './reproduce'
+import { reproduceLibrary, reproduceSnippet } from './reproduce'
 import { withCorrections } from './correction'
 
 export { evaluateClaim, type ClaimEvaluation } from './claim'
@@ -53,9 +53,11 @@ export function assembleReport(read: ReadResult, evaluations: readonly ClaimEval
   const claims: ReportClaim[] = read.claims.map((claim, i) => {
     const decided = decideClaim(claim, evaluations[i]!, conventions)
     const checked = claim.question !== undefined && (decided.verdict === 'verified' || decided.verdict === 'mismatch')
-    const reproduce = checked ? reproduceScript(claim.source, claim.question!, decided.conventions) : null
-    return reproduce !== null ? { ...decided, reproduce } : decided
+    const reproduce = checked ? reproduceSnippet(claim.question!, decided.conventions) : null
+    const expanded = claim.expandedSource !== claim.source ? { expanded: claim.expandedSource } : {}
+    return reproduce !== null ? { ...decided, ...expanded, reproduce } : { ...decided, ...expanded }
   })
+  const snippets = claims.map(c => c.reproduce)
   const count = (predicate: (c: ReportClaim) => boolean) => claims.filter(predicate).length
   return {
     schema: REPORT_SCHEMA,
@@ -76,6 +78,8 @@ export function assembleReport(read: ReadResult, evaluations: readonly ClaimEval
     warnings: read.warnings.map(w => ({ code: w.code, message: w.message, ...(w.file ? { file: w.file } : {}), ...(w.line ? { line: w.line } : {}) })),
     claims,
     notRead: read.notRead.map(n => ({ file: n.file, line: n.line, source: n.source, reason: n.reason })),
+    macros: read.macros ?? {},
+    ...(snippets.some(Boolean) ? { reproduceLibrary: reproduceLibrary(snippets) } : {}),
   }
 }
 

@@ -1,7 +1,9 @@
 /**
  * A short, self-contained SymPy script per claim that recomputes both sides from the
  * definitions, without Scholium, and prints whether the manuscript's value matches. A referee
- * who doubts a verdict runs it in any Python with SymPy.
+ * who doubts a verdict runs it in any Python with SymPy. The report stores each claim's own
+ * lines (`reproduceSnippet`) and the shared definitions once (`reproduceLibrary`);
+ * `reproduceScript` joins them into the runnable script.
  *
  * Definitions the scripts use (each the textbook one, not our engine's algorithm):
  * - S_{w0} = x_1^{n−1} x_2^{n−2} ⋯ x_{n−1}, and S_w = ∂_i S_{w s_i} whenever w(i) < w(i+1);
@@ -17,7 +19,10 @@
  */
 import type { EqualityQuestion, Expr, PermutationSpec } from '../types/claims'
 import type { ConventionSet } from '../types/conventions'
+import type { ReproduceLibrary, ReproduceSnippet } from '../types/report'
 import { permutationOf } from './evaluate'
+
+export { reproduceScript } from './reproduce-script'
 
 /** Helper definitions, each with the helpers it needs; a script carries only what it uses. */
 const HELPERS: Record<string, { needs: string[], code: string }> = {
@@ -160,14 +165,17 @@ const IMPORTS = 'from itertools import combinations, combinations_with_replaceme
   + 'from sympy.utilities.iterables import multiset_permutations\n'
   + 'X = symbols(\'x1:31\')\nY = symbols(\'y1:31\')'
 
+const ENDING = 'difference = expand(left - right)\n\n'
+  + 'print(\'matches\' if difference == 0 else \'differs by \' + str(difference))'
+
 class NotReproducible extends Error {}
 
 /**
- * The SymPy script for a claim, or null when the claim is not of a kind the scripts restate.
- * e.g. `reproduceScript(question, conventions)` for S_132 = x_1 + x_2 ends with a line printing
- * "matches" when run.
+ * The claim's part of the SymPy script, or null when the claim is not of a kind the scripts restate.
+ * e.g. `reproduceSnippet(question, conventions)` for S_132 = x_1 + x_2 is
+ * `{ needs: ['ddiff', 'climb', 'schubert'], left: 'schubert([1, 3, 2])', right: '(X[0] + X[1])' }`.
  */
-export function reproduceScript(source: string, question: EqualityQuestion, conventions: ConventionSet): string | null {
+export function reproduceSnippet(question: EqualityQuestion, conventions: ConventionSet): ReproduceSnippet | null {
   if (conventions.partition === 'shape-columns') return null
   const used = new Set<string>()
   const variables = symmetricVariableCount(question)
@@ -189,16 +197,14 @@ export function reproduceScript(source: string, question: EqualityQuestion, conv
     order.push(name)
   }
   for (const name of used) visit(name)
-  const comment = source.replace(/\s+/g, ' ').trim().slice(0, 160)
-  return [
-    `# Recomputes, from the definitions and without Scholium: ${comment}`,
-    IMPORTS,
-    ...order.map(name => HELPERS[name]!.code),
-    `left = ${left}`,
-    `right = ${right}`,
-    'difference = expand(left - right)',
-    'print(\'matches\' if difference == 0 else \'differs by \' + str(difference))',
-  ].join('\n\n') + '\n'
+  return { needs: order, left, right }
+}
+
+/** The imports and the helpers the given snippets need, each once. */
+export function reproduceLibrary(snippets: readonly (ReproduceSnippet | undefined | null)[]): ReproduceLibrary {
+  const helpers: Record<string, string> = {}
+  for (const snippet of snippets) for (const name of snippet?.needs ?? []) helpers[name] ??= HELPERS[name]!.code
+  return { imports: IMPORTS, helpers, ending: ENDING }
 }
 
 interface WriteContext {

@@ -8,6 +8,7 @@
 import type { ReadResult } from '../types/claims'
 import { DEFAULT_LIMITS, type ReaderLimits } from './limits'
 import { ReaderRun } from './reader'
+import { katexMacros } from './macros'
 import { normalizeBundlePath } from './paths'
 
 export type { ReaderLimits } from './limits'
@@ -55,13 +56,14 @@ export function readManuscript(input: ReadManuscriptInput): ReadResult {
   for (const p of outside) run.warn('path-escape', `file name "${p}" is absolute or leaves the manuscript folder; it was not read`)
   const main = input.main === undefined ? undefined : normalizeBundlePath(input.main) ?? input.main
   const fileInfo = run.run(main)
-  return { claims: run.claims, warnings: run.warnings, files: fileInfo, notRead: run.notRead }
+  return { claims: run.claims, warnings: run.warnings, files: fileInfo, notRead: run.notRead, macros: katexMacros(run.macroTable.macros.values()) }
 }
 
 /**
  * The reader's own choice of main file, for callers that must name it before reading (the upload
  * service). Example: `chooseMainFile({ 'a.tex': '\\documentclass{article}', 'b.tex': 'x' }) === 'a.tex'`.
- * Undefined when the bundle holds no LaTeX file.
+ * Undefined when the bundle holds no LaTeX file, or when the reader would read several roots (no
+ * file has \documentclass and several are included by none): naming one would read only that one.
  */
 export function chooseMainFile(files: Record<string, string | Uint8Array>): string | undefined {
   const normalized: Record<string, string | Uint8Array> = {}
@@ -69,5 +71,6 @@ export function chooseMainFile(files: Record<string, string | Uint8Array>): stri
     const norm = normalizeBundlePath(path)
     if (norm !== undefined) normalized[norm] = content
   }
-  return new ReaderRun(normalized, { ...DEFAULT_LIMITS }).sources.chooseRoots(undefined)[0]
+  const roots = new ReaderRun(normalized, { ...DEFAULT_LIMITS }).sources.chooseRoots(undefined)
+  return roots.length === 1 ? roots[0] : undefined
 }

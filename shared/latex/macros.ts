@@ -14,7 +14,7 @@
  * - User environments (\newenvironment) expand at \begin and \end; `onUserEnvironment` tells a
  *   listener where they start and end, since their own \begin/\end tokens are consumed.
  */
-import { Tokenizer, splitRuns, type Token } from './tokens'
+import { Tokenizer, renderTokens, splitRuns, type Token } from './tokens'
 
 /** One item of a \def parameter text: a parameter number or a literal delimiter token. */
 type PatternItem = { param: number } | { literal: Token }
@@ -83,6 +83,22 @@ export function unreadMacroReason(name: string): string {
 /** True for the reason `unreadMacroReason` gives. */
 export function isUnreadMacroReason(reason: string): boolean {
   return /the reader does not follow( it)?$/.test(reason)
+}
+
+/**
+ * The definitions KaTeX can use as they stand, as its `macros` option takes them: plain
+ * parameters only (no optional argument, no \def delimiters), since KaTeX reads neither. \let
+ * copies of commands and macros the reader does not follow are left out too: KaTeX would
+ * expand a copy again (`\let\oldsum\sum \renewcommand{\sum}{\oldsum\limits}` would loop).
+ * e.g. `\newcommand{\Sch}[1]{\mathfrak{S}_{#1}}` gives `{ '\\Sch': '\\mathfrak{S}_{#1}' }`.
+ */
+export function katexMacros(definitions: Iterable<MacroDefinition>): Record<string, string> {
+  const table: Record<string, string> = {}
+  for (const d of definitions) {
+    if (d.pattern || d.primitive || d.unread || d.args?.some(a => a.kind === 'optional')) continue
+    table[`\\${d.name}`] = renderTokens(d.body)
+  }
+  return table
 }
 
 export class ExpansionError extends Error {

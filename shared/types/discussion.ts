@@ -71,4 +71,6 @@ export interface RevisionComparisonView {
   to: RevisionRef
   entries: ClaimComparison<ComparedClaim>[]
   counts: Record<ComparisonCategory, number>
+  /** Both reports' macro tables for KaTeX (the later revision's definition wins). */
+  macros: Record<string, string>
 }

@@ -2,11 +2,13 @@
  * The check report: the same shape from the API (`GET /api/revisions/:id/report`)
  * and from the command line (`scholium check --json`). Versioned by `schema`;
  * fields are only ever added within a version. Every field is documented in the README.
+ * Version 2 (from 1): `claims[].reproduce` is the claim's own part of its script, the shared
+ * definitions are in `reproduceLibrary` once per report; `claims[].expanded` and `macros` added.
  */
 import type { ClaimKind } from './claims'
 import type { ConventionId, ConventionSet } from './conventions'
 
-export const REPORT_SCHEMA = 'scholium.report/1' as const
+export const REPORT_SCHEMA = 'scholium.report/2' as const
 
 export type Verdict = 'verified' | 'mismatch' | 'unsupported' | 'error'
 export const VERDICTS: readonly Verdict[] = ['verified', 'mismatch', 'unsupported', 'error']
@@ -81,12 +83,37 @@ export interface ReportClaim {
   /** Set on claims a tag asked to skip (their verdict is `unsupported`). */
   skipped?: true
   /**
-   * For a verified or mismatched claim of a kind SymPy can restate: a self-contained Python
-   * script that recomputes both sides from the definitions and prints "matches" or the difference.
+   * For a verified or mismatched claim of a kind SymPy can restate: its part of a Python script
+   * that recomputes both sides from the definitions and prints "matches" or the difference.
+   * `reproduceScript(report.reproduceLibrary, claim.reproduce)` (shared/check/reproduce.ts) is the
+   * runnable, self-contained script.
    */
-  reproduce?: string
+  reproduce?: ReproduceSnippet
+  /** The LaTeX after expanding the manuscript's own macros (absent in reports stored before it was added). */
+  expanded?: string
   /** For a mismatch: the corrected statement in the paper's own notation, or why there is none. */
   correction?: ClaimCorrection
+}
+
+/**
+ * A claim's own part of its SymPy script: the two sides as Python expressions and the helpers
+ * (by name, in definition order) they call, e.g. `{ needs: ['ddiff', 'climb', 'schubert'],
+ * left: 'schubert([1, 3, 2])', right: '(X[0] + X[1])' }`.
+ */
+export interface ReproduceSnippet {
+  needs: string[]
+  left: string
+  right: string
+}
+
+/**
+ * What the claims' scripts share, stored once per report: the imports, each helper's code by
+ * name, and the closing lines that compare `left` with `right` and print the outcome.
+ */
+export interface ReproduceLibrary {
+  imports: string
+  helpers: Record<string, string>
+  ending: string
 }
 
 /**
@@ -169,4 +196,8 @@ export interface Report {
   claims: ReportClaim[]
   /** Math the reader passed over; absent in older reports. */
   notRead?: ReportNotRead[]
+  /** The paper's own macros as KaTeX takes them (`{ '\\Sch': '\\mathfrak{S}_{#1}' }`); absent in older reports. */
+  macros?: Record<string, string>
+  /** The definitions every `claims[].reproduce` refers to; present when some claim has a script. */
+  reproduceLibrary?: ReproduceLibrary
 }

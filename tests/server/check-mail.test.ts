@@ -34,7 +34,7 @@ function runWorker(checkRunId: string, env: Record<string, string>): Promise<{ c
 /** A run off the queue, requested by `userId`, that has waited `waitedSeconds` already. */
 async function insertRun(revisionId: string, userId: string, waitedSeconds: number): Promise<string> {
   const { id } = await db.insertInto('check_runs').values({
-    revision_id: revisionId, requested_by: userId, conventions: '{}', timings: '{}', summary: '{}',
+    revision_id: revisionId, requested_by: userId, conventions: '{}', timings: '{}',
     queued_at: new Date(Date.now() - waitedSeconds * 1000),
   }).returning('id').executeTakeFirstOrThrow()
   return id

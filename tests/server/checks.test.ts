@@ -39,9 +39,27 @@ describe('checking an uploaded revision', () => {
     for (const line of [25, 28, 34, 37, 39]) expect(at('main.tex', line).every((c: any) => c.verdict === 'verified')).toBe(true)
     expect(report.summary.mismatch).toBe(2)
     expect(report.files.find((f: any) => f.path === 'main.tex').sha256).toMatch(/^[0-9a-f]{64}$/)
-    // Every claim the reader finds is stored once.
-    const stored = await db.selectFrom('claims').select(['ordinal']).where('check_run_id', '=', checkRunId).orderBy('ordinal').execute()
+    // Every claim the reader finds is indexed once, under the id the report gives it.
+    const stored = await db.selectFrom('claims').select(['ordinal', 'report_id']).where('check_run_id', '=', checkRunId).orderBy('ordinal').execute()
     expect(stored.map(c => c.ordinal)).toEqual(report.claims.map((_: unknown, i: number) => i))
+    expect(stored.map(c => c.report_id)).toEqual(report.claims.map((c: any) => c.id))
+  })
+
+  it('the report carries what the page renders: the paper\'s macros, each claim\'s expansion, and one copy of the scripts\' definitions', async () => {
+    const { client, revisionId, checkRunId } = await uploadDemoDraft()
+    await waitForRun(checkRunId, status => status === 'finished')
+    const report = (await client.get(`/api/revisions/${revisionId}/report`)).body.report
+    // main.tex defines \Sch and \Groth with \newcommand.
+    expect(report.macros).toMatchObject({ '\\Sch': '\\mathfrak{S}_{#1}', '\\Groth': '\\mathfrak{G}_{#1}' })
+    const sch = report.claims.find((c: any) => c.source.includes('\\Sch{'))
+    expect(sch.expanded).toContain('\\mathfrak{S}_{')
+    const scripted = report.claims.filter((c: any) => c.reproduce)
+    expect(scripted.length).toBeGreaterThan(3)
+    for (const c of scripted) for (const name of c.reproduce.needs) expect(report.reproduceLibrary.helpers[name]).toBeDefined()
+    // The small progress answer carries the head (counts), never the claims.
+    const run = (await client.get(`/api/check-runs/${checkRunId}`)).body
+    expect(run.summary.summary.claims).toBe(report.claims.length)
+    expect(run.summary).not.toHaveProperty('claims')
   })
 
   it('re-checks with conventions fixed for one run, and the sources come back as uploaded', async () => {
@@ -58,6 +76,11 @@ describe('checking an uploaded revision', () => {
     expect(doubles.every((c: any) => c.verdict === 'mismatch' && c.holdsUnder.includes('xy-minus'))).toBe(true)
     const sources = await client.get(`/api/revisions/${revisionId}/sources`)
     expect(sources.body.files.find((f: any) => f.path === 'main.tex').text).toBe(demo('vexillary-flags/rev1/main.tex'))
+    // One file at a time, as the report page's file tabs load them.
+    const one = await client.get(`/api/revisions/${revisionId}/source?path=sections/double.tex`)
+    expect(one.body).toEqual({ path: 'sections/double.tex', text: demo('vexillary-flags/rev1/sections/double.tex') })
+    expect((await client.get(`/api/revisions/${revisionId}/source?path=nowhere.tex`)).status).toBe(404)
+    expect((await client.get(`/api/revisions/${revisionId}/source`)).status).toBe(400)
   })
 
   it('refuses bad conventions and strangers', async () => {
@@ -95,7 +118,7 @@ async function unqueuedSlowRun(): Promise<string> {
   const upload = await me.client.post(`/api/manuscripts/${m.id}/revisions`, filesForm([{ name: 'slow.tex', content: SLOW_TEX }]))
   await waitForRun(upload.body.checkRunId, status => status === 'finished')
   // Only the worker started by the test takes it, until its lease runs out.
-  const { id } = await db.insertInto('check_runs').values({ revision_id: upload.body.id, conventions: '{}', timings: '{}', summary: '{}' }).returning('id').executeTakeFirstOrThrow()
+  const { id } = await db.insertInto('check_runs').values({ revision_id: upload.body.id, conventions: '{}', timings: '{}' }).returning('id').executeTakeFirstOrThrow()
   return id
 }
 

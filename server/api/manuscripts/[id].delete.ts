@@ -1,11 +1,9 @@
-import { z } from 'zod'
 import { deleteManuscript } from '../../repositories/manuscripts'
 import { appendAudit } from '../../repositories/audit'
 
-const Params = z.object({ id: z.string() })
 
 export default defineEventHandler(async (event) => {
-  const { id } = await routeParamsAs(event, Params)
+  const { id } = await idParamsAs(event, 'id')
   const grant = await authorize(event, { manuscript: id, owner: true })
   const db = useDb()
   await db.transaction().execute(async (trx) => {

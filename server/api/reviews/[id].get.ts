@@ -1,12 +1,10 @@
-import { z } from 'zod'
 import type { ReviewView } from '#shared/types/api'
 import { revisionViews } from '../../services/views'
 
-const Params = z.object({ id: z.string() })
 
 /** A referee's view of one assigned submission: the submitted revision and its latest run. */
 export default defineEventHandler(async (event): Promise<ReviewView> => {
-  const { id } = await routeParamsAs(event, Params)
+  const { id } = await idParamsAs(event, 'id')
   const grant = await authorize(event, { refereeAssignment: id })
   const [revision] = await revisionViews(useDb(), grant.manuscriptId, grant.revisionId)
   if (!revision) fail(404, 'not-found', 'No such review')

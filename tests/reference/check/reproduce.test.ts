@@ -10,12 +10,17 @@ import { spawnSync } from 'node:child_process'
 import { readFileSync, readdirSync } from 'node:fs'
 import { join } from 'node:path'
 import { checkManuscript } from '../../../shared/check'
+import { reproduceScript } from '../../../shared/check/reproduce'
 import type { ReportClaim } from '../../../shared/types/report'
 
 const ROOT = join(import.meta.dirname, '../../..')
 
-function claimsOf(path: string): ReportClaim[] {
-  return checkManuscript({ files: { 'main.tex': readFileSync(path, 'utf8') } }).claims
+/** The claims with their runnable scripts, joined from the report's library as the UI and the CLI do. */
+type ClaimWithScript = ReportClaim & { script?: string }
+
+function claimsOf(path: string): ClaimWithScript[] {
+  const report = checkManuscript({ files: { 'main.tex': readFileSync(path, 'utf8') } })
+  return report.claims.map(c => ({ ...c, script: reproduceScript(report.reproduceLibrary, c) ?? undefined }))
 }
 
 /** Runs many scripts in one python3 process (each in its own namespace) and returns what each printed. */
@@ -36,10 +41,10 @@ print(json.dumps(outputs))
 }
 
 describe('reproduction scripts agree with the verdicts when SymPy runs them', () => {
-  const sample: ReportClaim[] = [
+  const sample: ClaimWithScript[] = [
     ...claimsOf(join(ROOT, 'tests/fixtures/corpus/manuscript.tex')),
     ...readdirSync(join(ROOT, 'tests/fixtures/cli')).filter(f => f.endsWith('.tex')).flatMap(f => claimsOf(join(ROOT, 'tests/fixtures/cli', f))),
-  ].filter(c => c.reproduce !== undefined)
+  ].filter(c => c.script !== undefined)
 
   it('the sample covers verified and mismatched claims of several kinds', () => {
     expect(sample.filter(c => c.verdict === 'verified').length).toBeGreaterThan(10)
@@ -48,7 +53,7 @@ describe('reproduction scripts agree with the verdicts when SymPy runs them', ()
   })
 
   it('every script prints "matches" exactly when the claim is verified', () => {
-    const outputs = runScripts(sample.map(c => c.reproduce!))
+    const outputs = runScripts(sample.map(c => c.script!))
     const disagreements = sample
       .map((claim, i) => ({ claim, output: outputs[i]! }))
       .filter(({ claim, output }) => (output === 'matches') !== (claim.verdict === 'verified') || !/^(matches|differs by )/.test(output))

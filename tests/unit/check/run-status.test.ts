@@ -1,10 +1,10 @@
 // Issue 11: what a reader sees of a run whose worker died (server/services/check-runs.ts).
 import { describe, expect, it } from 'vitest'
 import { checkRunView, runStatus } from '../../../server/services/check-runs'
-import type { CheckRunRow } from '../../../server/database/schema'
+import type { CheckRunHead } from '../../../server/database/schema'
 
 const now = new Date('2026-12-02T10:00:00Z')
-const row = (status: CheckRunRow['status'], leaseUntil: Date | null): CheckRunRow => ({
+const row = (status: CheckRunHead['status'], leaseUntil: Date | null): CheckRunHead => ({
   id: 'r', revision_id: 'v', status, engine_version: null, conventions: {}, claims_total: 10, claims_done: 3, timings: {}, summary: {},
   error: null, attempts: 1, requested_by: null, queued_at: now, started_at: now, finished_at: null, lease_owner: 'w', lease_until: leaseUntil, what_if: false,
 })

@@ -123,8 +123,8 @@ describe('exit codes', () => {
 describe('--json', () => {
   it('prints exactly the report: schema, documented fields, lines, verdicts and file hashes', () => {
     const r = report('check', join(FIXTURES, 'one-wrong.tex'))
-    expect(r.schema).toBe('scholium.report/1')
-    expect(Object.keys(r).sort()).toEqual(['claims', 'conventions', 'engine', 'files', 'notRead', 'schema', 'summary', 'warnings'])
+    expect(r.schema).toBe('scholium.report/2')
+    expect(Object.keys(r).sort()).toEqual(['claims', 'conventions', 'engine', 'files', 'macros', 'notRead', 'reproduceLibrary', 'schema', 'summary', 'warnings'])
     expect(Object.keys(r.summary).sort()).toEqual(['claims', 'durationMs', 'error', 'mismatch', 'notRead', 'otherConvention', 'skipped', 'unsupported', 'verified'])
     expect(r.summary).toMatchObject({ claims: 6, verified: 5, mismatch: 1, unsupported: 0, error: 0 })
     expect(r.claims.map((c: any) => [c.line, c.verdict])).toEqual([
@@ -136,10 +136,36 @@ describe('--json', () => {
     const bytes = readFileSync(join(FIXTURES, 'one-wrong.tex'))
     expect(r.files).toEqual([{ path: 'one-wrong.tex', role: 'main', lines: bytes.toString('utf8').split('\n').length, sha256: createHash('sha256').update(bytes).digest('hex') }])
   })
+  it('stores the scripts\' shared definitions once: each claim keeps only its own lines and the names it needs', () => {
+    const r = report('check', join(FIXTURES, 'one-wrong.tex'))
+    const withScript = r.claims.filter((c: any) => c.reproduce)
+    expect(withScript.length).toBeGreaterThan(3)
+    for (const c of withScript) {
+      expect(Object.keys(c.reproduce).sort()).toEqual(['left', 'needs', 'right'])
+      expect(c.reproduce.left + c.reproduce.right).not.toMatch(/def |import/)
+      for (const name of c.reproduce.needs) expect(r.reproduceLibrary.helpers[name]).toMatch(new RegExp(`^def ${name}\\(`))
+    }
+  })
   it('exits 1 with --json too, and writes nothing to stderr', () => {
     const run = scholium('check', join(FIXTURES, 'one-wrong.tex'), '--json')
     expect(run.code).toBe(1)
     expect(run.stderr).toBe('')
+  })
+})
+
+describe('--script-for', () => {
+  // \Sch{132} = x_1 is wrong (S_132 = x_1 + x_2, Macdonald's table above); Debian's python3-sympy runs the script.
+  it('prints a runnable SymPy script for one claim, which Debian\'s python3 runs to "differs by"; an unknown id exits 2', () => {
+    const wrong = report('check', join(FIXTURES, 'one-wrong.tex')).claims[0]
+    const run = scholium('check', join(FIXTURES, 'one-wrong.tex'), '--script-for', wrong.id)
+    expect(run.code).toBe(0)
+    expect(run.stdout).toMatch(/^# Recomputes/)
+    const python = spawnSync('/usr/bin/python3', ['-'], { input: run.stdout, encoding: 'utf8', timeout: 60_000 })
+    expect(python.stderr).toBe('')
+    expect(python.stdout.trim()).toMatch(/^differs by /)
+    const unknown = scholium('check', join(FIXTURES, 'one-wrong.tex'), '--script-for', 'nowhere.tex:1:1')
+    expect(unknown.code).toBe(2)
+    expect(unknown.stderr).toContain('no claim with that id')
   })
 })
 

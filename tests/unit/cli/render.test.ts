@@ -16,7 +16,7 @@ function claim(line: number, fields: Partial<ReportClaim>): ReportClaim {
 }
 
 const report: Report = {
-  schema: 'scholium.report/1',
+  schema: 'scholium.report/2',
   engine: { version: '9.9.9' },
   conventions: { inferred: { doubleSign: 'xy-plus' }, fixed: { partition: 'shape-columns' }, used: { ...REFERENCE_CONVENTIONS, doubleSign: 'xy-plus', partition: 'shape-columns' }, evidence: { 'xy-plus': 3 } },
   summary: { claims: 6, verified: 1, mismatch: 3, unsupported: 1, error: 1, otherConvention: 1, skipped: 0, durationMs: 12 },

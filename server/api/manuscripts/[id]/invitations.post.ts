@@ -1,12 +1,11 @@
 import { z } from 'zod'
 import { inviteCoauthor } from '../../../services/invitations'
 
-const Params = z.object({ id: z.string() })
 const Body = z.object({ email: z.string().trim().email('Enter a valid e-mail address').max(254) })
 
 /** The owner invites a coauthor by e-mail; the mail carries a single-use link. Coauthors get 403, strangers 404. */
 export default defineEventHandler(async (event) => {
-  const { id } = await routeParamsAs(event, Params)
+  const { id } = await idParamsAs(event, 'id')
   const grant = await authorize(event, { manuscript: id, owner: true })
   const { email } = await readBodyAs(event, Body)
   const invitation = await inviteCoauthor(useDb(), grant, email, publicBaseUrl())

@@ -1,15 +1,13 @@
-import { z } from 'zod'
 import type { ReleasedRefereeNotes } from '#shared/types/editorial'
 import { listClaimNotes, listReleasedAssignmentsForManuscript } from '../../../repositories/referee-notes'
 
-const Params = z.object({ id: z.string() })
 
 /**
  * Released referee notes for the manuscript's members. Referees are "Referee N" (numbered per
  * submission); nothing here is read from a referee's user row, so no name or e-mail can leak.
  */
 export default defineEventHandler(async (event): Promise<ReleasedRefereeNotes[]> => {
-  const { id } = await routeParamsAs(event, Params)
+  const { id } = await idParamsAs(event, 'id')
   const grant = await authorize(event, { manuscript: id })
   const db = useDb()
   const released = await listReleasedAssignmentsForManuscript(db, grant.manuscriptId)

@@ -1,7 +1,6 @@
 import { z } from 'zod'
 import { addClaimNote } from '../../../services/referees'
 
-const Params = z.object({ id: z.string() })
 const Body = z.object({
   claimId: z.string().uuid('Choose a claim'),
   body: z.string().trim().min(1, 'Write a note').max(10_000, 'At most 10,000 characters'),
@@ -9,7 +8,7 @@ const Body = z.object({
 
 /** The referee adds a note on one claim of the submitted revision (until the notes are released). */
 export default defineEventHandler(async (event) => {
-  const { id } = await routeParamsAs(event, Params)
+  const { id } = await idParamsAs(event, 'id')
   const grant = await authorize(event, { refereeAssignment: id })
   const body = await readBodyAs(event, Body)
   const note = await addClaimNote(useDb(), grant, body.claimId, body.body)

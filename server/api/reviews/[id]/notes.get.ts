@@ -1,12 +1,10 @@
-import { z } from 'zod'
 import type { ReviewNotesView } from '#shared/types/editorial'
 import { listClaimNotes, listClaimOptions } from '../../../repositories/referee-notes'
 
-const Params = z.object({ id: z.string() })
 
 /** The referee's own notes on an assignment, and the claims they can be written on. */
 export default defineEventHandler(async (event): Promise<ReviewNotesView> => {
-  const { id } = await routeParamsAs(event, Params)
+  const { id } = await idParamsAs(event, 'id')
   const grant = await authorize(event, { refereeAssignment: id })
   const db = useDb()
   const [claimNotes, claims] = await Promise.all([listClaimNotes(db, [grant.assignmentId], grant.revisionId), listClaimOptions(db, grant.revisionId)])

@@ -1,8 +1,6 @@
-import { z } from 'zod'
 import type { RevisionCommentsView } from '#shared/types/discussion'
 import { revisionComments } from '../../../services/discussion'
 
-const Params = z.object({ id: z.string() })
 
 /**
  * The members' threads on this revision's claims. Only members of the manuscript may read
@@ -10,7 +8,7 @@ const Params = z.object({ id: z.string() })
  * discussion, so the authors' private talk never reaches them (referee notes are elsewhere).
  */
 export default defineEventHandler(async (event): Promise<RevisionCommentsView> => {
-  const { id } = await routeParamsAs(event, Params)
+  const { id } = await idParamsAs(event, 'id')
   const grant = await authorize(event, { revision: id })
   if (grant.viewer !== 'member') fail(404, 'not-found', 'No such discussion')
   return revisionComments(useDb(), grant.manuscriptId, id)

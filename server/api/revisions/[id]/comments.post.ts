@@ -1,7 +1,6 @@
 import { z } from 'zod'
 import { postClaimComment } from '../../../services/discussion'
 
-const Params = z.object({ id: z.string() })
 const Body = z.object({
   /** The claim's id in the report (`ReportClaim.id`, e.g. `main.tex:30:1`). */
   claimId: z.string().min(1).max(300),
@@ -11,7 +10,7 @@ const Body = z.object({
 
 /** A member comments on a claim of this revision's newest report, or replies in its thread. Members only (404 otherwise). */
 export default defineEventHandler(async (event) => {
-  const { id } = await routeParamsAs(event, Params)
+  const { id } = await idParamsAs(event, 'id')
   const grant = await authorize(event, { revision: id })
   if (grant.viewer !== 'member') fail(404, 'not-found', 'No such discussion')
   const body = await readBodyAs(event, Body)

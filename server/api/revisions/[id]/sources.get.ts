@@ -1,28 +1,16 @@
-import { z } from 'zod'
 import type { SourceFileView } from '#shared/types/api'
 import { listRevisionFileKeys } from '../../../repositories/revisions'
+import { decodeText, isTextPath } from '../../../storage/source-text'
 
-const Params = z.object({ id: z.string() })
-const TEXT_FILE = /\.(tex|sty|cls|bib|bbl|txt|md|cfg|def|clo|bst|tikz|csv|dat)$/i
-
-/** The revision's text files, for the line-by-line report. */
+/** Every file of the revision with its text (the report page loads one file at a time from `source`). */
 export default defineEventHandler(async (event): Promise<{ files: SourceFileView[] }> => {
-  const { id } = await routeParamsAs(event, Params)
+  const { id } = await routeParamsAs(event, IdParams)
   await authorize(event, { revision: id })
   const files = await listRevisionFileKeys(useDb(), id)
   return {
     files: await Promise.all(files.map(async f => ({
       path: f.path,
-      text: TEXT_FILE.test(f.path) ? decodeText(await getSource(f.storage_key)) : null,
+      text: isTextPath(f.path) ? decodeText(await getSource(f.storage_key)) : null,
     }))),
   }
 })
-
-function decodeText(bytes: Uint8Array): string {
-  try {
-    return new TextDecoder('utf-8', { fatal: true }).decode(bytes)
-  }
-  catch {
-    return new TextDecoder('latin1').decode(bytes)
-  }
-}

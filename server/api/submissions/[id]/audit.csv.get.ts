@@ -1,11 +1,9 @@
-import { z } from 'zod'
 import { auditSummary, auditSummaryCsv } from '../../../services/audit-summary'
 
-const Params = z.object({ id: z.string() })
 
 /** The submission's audit summary as a CSV download, for its venue's editors only. */
 export default defineEventHandler(async (event) => {
-  const { id } = await routeParamsAs(event, Params)
+  const { id } = await idParamsAs(event, 'id')
   const grant = await authorize(event, { submissionEditor: id })
   const csv = auditSummaryCsv(await auditSummary(useDb(), grant))
   setResponseHeader(event, 'content-type', 'text/csv; charset=utf-8')

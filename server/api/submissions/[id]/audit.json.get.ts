@@ -1,12 +1,10 @@
-import { z } from 'zod'
 import type { AuditSummary } from '#shared/types/editorial'
 import { auditSummary } from '../../../services/audit-summary'
 
-const Params = z.object({ id: z.string() })
 
 /** The submission's audit summary as JSON, for its venue's editors only. */
 export default defineEventHandler(async (event): Promise<AuditSummary> => {
-  const { id } = await routeParamsAs(event, Params)
+  const { id } = await idParamsAs(event, 'id')
   const grant = await authorize(event, { submissionEditor: id })
   return auditSummary(useDb(), grant)
 })

@@ -3,9 +3,8 @@ import { SUBMISSION_SORT_KEYS, SUBMISSION_STATUSES, type VenueSubmissionRow, typ
 import { findVenue } from '../../../repositories/venues'
 import { listRefereesForSubmissions, pageSubmissionsForVenue } from '../../../repositories/submissions'
 import { latestRunsByRevision } from '../../../services/check-runs'
-import { verdictCountsOf } from '../../../services/audit-summary'
+import { verdictCountsOf } from '#shared/types/report-schema'
 
-const Params = z.object({ id: z.string() })
 const Query = z.object({
   page: z.coerce.number().int().min(1).max(100_000).default(1),
   pageSize: z.coerce.number().int().min(1).max(100).default(25),
@@ -20,7 +19,7 @@ const Query = z.object({
  * editors appoint them). Sorted, filtered and paged in the database.
  */
 export default defineEventHandler(async (event): Promise<VenueSubmissionsPage> => {
-  const { id } = await routeParamsAs(event, Params)
+  const { id } = await idParamsAs(event, 'id')
   await authorize(event, { venueEditor: id })
   const parsed = await getValidatedQuery(event, query => Query.safeParse(query))
   if (!parsed.success) fail(400, 'invalid-input', 'The request is not valid', { fields: Object.fromEntries(parsed.error.issues.map(i => [i.path.join('.') || '_', i.message])) })

@@ -2,7 +2,6 @@ import { z } from 'zod'
 import { CONVENTION_AXES, type ConventionAxis } from '#shared/types/conventions'
 import { proposeConvention } from '../../../../services/conventions'
 
-const Params = z.object({ id: z.string() })
 const Body = z.object({
   axis: z.enum(Object.keys(CONVENTION_AXES) as [ConventionAxis, ...ConventionAxis[]]),
   conventionId: z.string().max(40),
@@ -10,7 +9,7 @@ const Body = z.object({
 
 /** A member proposes a convention; it is accepted when every other member has agreed (at once when there is no other member). */
 export default defineEventHandler(async (event) => {
-  const { id } = await routeParamsAs(event, Params)
+  const { id } = await idParamsAs(event, 'id')
   const grant = await authorize(event, { manuscript: id })
   const { axis, conventionId } = await readBodyAs(event, Body)
   const outcome = await proposeConvention(useDb(), await useQueue(), { manuscriptId: id, userId: grant.user.id, axis, conventionId })

@@ -1,11 +1,9 @@
-import { z } from 'zod'
 import { createRevision } from '../../../../services/revisions'
 import { MalformedUploadError, MAX_UPLOAD_REQUEST_BYTES, receiveMultipartUpload, UPLOAD_LIMITS, UploadRefusedError, type ReceivedUpload } from '../../../../uploads'
 
-const Params = z.object({ id: z.string() })
 
 export default defineEventHandler(async (event) => {
-  const { id } = await routeParamsAs(event, Params)
+  const { id } = await idParamsAs(event, 'id')
   const grant = await authorize(event, { manuscript: id })
   let upload: ReceivedUpload
   try {

@@ -4,11 +4,10 @@ import { findVenue } from '../../../../repositories/venues'
 import { insertSubmission } from '../../../../repositories/submissions'
 import { appendAudit } from '../../../../repositories/audit'
 
-const Params = z.object({ id: z.string() })
 const Body = z.object({ revisionId: z.string().uuid('Choose a revision'), venueId: z.string().uuid('Choose a venue') })
 
 export default defineEventHandler(async (event) => {
-  const { id } = await routeParamsAs(event, Params)
+  const { id } = await idParamsAs(event, 'id')
   const grant = await authorize(event, { manuscript: id })
   const body = await readBodyAs(event, Body)
   const db = useDb()
