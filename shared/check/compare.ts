@@ -16,8 +16,9 @@ import {
   type Coefficient, type SchubertCombination, type SchurCombination,
 } from '../math'
 import { evaluate, permutationOf, type EvaluationEnv } from './evaluate'
-import { commonDenominator, INFINITE_WITH_FINITE, numeratorOver, simplifyValue, toParametric, toPolynomial, UnsupportedClaimError, type Value } from './values'
+import { commonDenominator, INFINITE_WITH_FINITE, numeratorOver, simplifyValue, toBackStable, toParametric, toPolynomial, UnsupportedClaimError, type Value } from './values'
 import { compareInRing, isRingClaim } from './grassmannian'
+import { backStableDiff, backStableLatex } from './back-stable'
 
 export interface Comparison {
   holds: boolean
@@ -47,6 +48,11 @@ export function compareSides(lhs: Expr, rhs: Expr, env: EvaluationEnv): Comparis
   const right = simplifyValue(evaluate(rhs, env))
   env.meter.checkTime()
   if (left.kind === 'parametric' || right.kind === 'parametric') return parametricComparison(left, right, env)
+  if (left.kind === 'backStable' || right.kind === 'backStable') {
+    const computed = toBackStable(left)
+    const diff = backStableDiff(computed, toBackStable(right))
+    return { holds: diff === null, computed: backStableLatex(computed, COMPUTED_LATEX_TERMS), diff }
+  }
   if (left.kind === 'number' && right.kind === 'number') {
     const holds = left.value === right.value
     return { holds, computed: left.value.toString(), diff: holds ? null : { basis: 'number', claimed: right.value.toString(), computed: left.value.toString() } }

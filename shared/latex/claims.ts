@@ -21,6 +21,7 @@ import type { BindingScopes } from './bindings'
 import { arrayTableGrid, readTable, type TableGrid } from './tables'
 import { isSpaceBinding, settingForClaim } from './notation/grassmannian'
 import { readCompositionBinding } from './notation/k-theory'
+import type { ChernFamily } from './notation/back-stable'
 
 /** Claims and not-read entries of a run, numbered and bounded by the claim limit. */
 export class ClaimOutput {
@@ -67,6 +68,8 @@ export interface ReadingState {
   conventions: ReadonlyMap<ConventionAxis, ConventionId>
   /** Parameters declared by `parameters` tags so far (notation/k-theory.ts). */
   parameters?: ReadonlySet<string>
+  /** Chern-class letters declared by `chern` tags so far (notation/back-stable.ts). */
+  chern?: ReadonlyMap<string, ChernFamily>
   /** The Grassmannian the text or a tag named, where σ_λ classes live. */
   grassmannian?: () => GrassmannianSetting | undefined
   /** Sees each region's math first, so that math naming a Grassmannian makes it the setting. */
@@ -166,7 +169,8 @@ export class ClaimReader {
     const setting = this.state.grassmannian?.()
     return {
       bindings: this.state.bindings.visible, notation: this.state.notation,
-      ...(this.state.parameters ? { parameters: this.state.parameters } : {}), ...(setting ? { grassmannian: setting } : {}),
+      ...(this.state.parameters ? { parameters: this.state.parameters } : {}), ...(this.state.chern?.size ? { chern: this.state.chern } : {}),
+      ...(setting ? { grassmannian: setting } : {}),
     }
   }
 

@@ -24,6 +24,7 @@ const KIND_PRIORITY: [Expr['type'] | 'schur-like', ClaimKind][] = [
   ['specialise', 'specialization'],
   ['grothendieck', 'grothendieck'],
   ['keyPolynomial', 'key'],
+  ['backStable', 'backStable'],
   ['stanley', 'stanley'],
   ['schubert', 'schubert'],
   ['symmetric', 'symmetricFunction'],
@@ -43,6 +44,7 @@ export function exprTypes(e: Expr, into = new Set<Expr['type']>()): Set<Expr['ty
     case 'evaluateAtOnes':
     case 'dividedDifference':
     case 'specialise':
+    case 'nonPositive':
       exprTypes(e.arg, into)
       break
     case 'formalGroup':

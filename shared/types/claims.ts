@@ -97,6 +97,13 @@ export type Expr =
   | { type: 'specialise'; arg: Expr; parameter: string; value: string }
   /** Key polynomial κ_α (`key`) or Demazure atom A_α (`atom`) of a weak composition α. */
   | { type: 'keyPolynomial'; family: 'key' | 'atom'; composition: number[] }
+  /**
+   * Back-stable Schubert polynomial ←S_w (`\overleftarrow{\mathfrak{S}}_w`), single or double
+   * (factors x − y): symmetric in x_0, x_{−1}, … (and y_0, y_{−1}, …) times a polynomial in x_1, x_2, ….
+   */
+  | { type: 'backStable'; perm: PermutationSpec; variant: SchubertVariant }
+  /** A symmetric function without variables (`arg`) taken in the non-positive variables x_0, x_{−1}, … (or y_0, y_{−1}, …). */
+  | { type: 'nonPositive'; set: 'x' | 'y'; arg: Expr }
 
 /** The Grassmannian Gr(k, n) of k-planes in ℂ^n, as named in the text (1 ≤ k ≤ n − 1). */
 export interface GrassmannianSpace {
@@ -142,6 +149,7 @@ export type ClaimKind =
   | 'littlewoodRichardson'
   | 'kostka'
   | 'key'
+  | 'backStable'
   | 'grassmannian'
   | 'quantumGrassmannian'
   | 'coproduct'
@@ -150,7 +158,7 @@ export type ClaimKind =
 export const CLAIM_KINDS: readonly ClaimKind[] = [
   'schubert', 'grothendieck', 'stanley', 'symmetricFunction', 'polynomial', 'dividedDifference',
   'determinant', 'specialization', 'length', 'count', 'structureConstant', 'littlewoodRichardson',
-  'kostka', 'key', 'grassmannian', 'quantumGrassmannian', 'coproduct', 'unknown',
+  'kostka', 'key', 'backStable', 'grassmannian', 'quantumGrassmannian', 'coproduct', 'unknown',
 ]
 
 /**
