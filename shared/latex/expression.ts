@@ -379,6 +379,10 @@ export class SideParser {
             this.meaningful = true
             return { type: 'quantumParameter' }
           }
+          // q next to classes of plain H*(Gr(k,n)): the paper may mean QH* without saying so; never guess.
+          if (this.ctx.grassmannian?.ring === 'cohomology' && !isCh(this.peek(), '_')) {
+            throw new ParseFail('q in H^*(Gr(k,n)), not QH^*: the quantum parameter is not read there')
+          }
           break
         case 'C':
           return this.capitalCoefficient()
