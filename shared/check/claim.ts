@@ -122,7 +122,7 @@ function walk(exprs: readonly Expr[], visit: (e: Expr) => void): void {
     switch (e.type) {
       case 'add': walk(e.terms, visit); break
       case 'multiply': walk(e.factors, visit); break
-      case 'negate': case 'dividedDifference': case 'evaluateAtOnes': case 'integral': case 'coproduct': case 'specialise': case 'nonPositive': walk([e.arg], visit); break
+      case 'negate': case 'dividedDifference': case 'evaluateAtOnes': case 'integral': case 'coproduct': case 'specialise': case 'nonPositive': case 'supersymmetric': walk([e.arg], visit); break
       case 'tensor': case 'formalGroup': walk([e.left, e.right], visit); break
       case 'power': walk([e.base], visit); break
       case 'determinant': walk(e.rows.flat(), visit); break

@@ -12,7 +12,7 @@ import type { ClaimDiff, DiffTerm, DiffWrongCoefficient } from '../types/report'
 import { DIFF_LIMIT } from '../types/report'
 import {
   combinationEntries, monomialLatex, partitionFromKey, Permutation, polynomialDifference, schubertAtOnes, schubertExpansion,
-  schubertProduct, addChecked, mulChecked, absCoefficient, toCoefficient, parametricDifference, parametricMonomialLatex,
+  schubertProduct, checkSupersymmetry, addChecked, mulChecked, absCoefficient, toCoefficient, parametricDifference, parametricMonomialLatex,
   type Coefficient, type SchubertCombination, type SchurCombination,
 } from '../math'
 import { evaluate, permutationOf, type EvaluationEnv } from './evaluate'
@@ -34,6 +34,10 @@ const COMPUTED_LATEX_TERMS = 120
 const INVARIANTS_FIRST_ABOVE = 5000n
 
 export function compareSides(lhs: Expr, rhs: Expr, env: EvaluationEnv): Comparison {
+  if (lhs.type === 'supersymmetric') {
+    const result = checkSupersymmetry(toPolynomial(evaluate(lhs.arg, env)), lhs.k, env.meter)
+    return { holds: result.supersymmetric, computed: result.message, diff: result.supersymmetric ? null : { basis: 'property', property: 'supersymmetry', computed: result.message } }
+  }
   if (isRingClaim(lhs, rhs, env.grassmannian)) return compareInRing(lhs, rhs, env, env.grassmannian)
   const early = invariantMismatch(lhs, rhs, env) ?? invariantMismatch(rhs, lhs, env, true)
   if (early) return early

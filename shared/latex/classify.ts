@@ -23,6 +23,7 @@ const KIND_PRIORITY: [Expr['type'] | 'schur-like', ClaimKind][] = [
   ['evaluateAtOnes', 'specialization'],
   ['specialise', 'specialization'],
   ['grothendieck', 'grothendieck'],
+  ['supersymmetric', 'supersymmetry'],
   ['keyPolynomial', 'key'],
   ['backStable', 'backStable'],
   ['stanley', 'stanley'],
@@ -45,6 +46,7 @@ export function exprTypes(e: Expr, into = new Set<Expr['type']>()): Set<Expr['ty
     case 'dividedDifference':
     case 'specialise':
     case 'nonPositive':
+    case 'supersymmetric':
       exprTypes(e.arg, into)
       break
     case 'formalGroup':

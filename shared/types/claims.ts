@@ -104,6 +104,11 @@ export type Expr =
   | { type: 'backStable'; perm: PermutationSpec; variant: SchubertVariant }
   /** A symmetric function without variables (`arg`) taken in the non-positive variables x_0, x_{−1}, … (or y_0, y_{−1}, …). */
   | { type: 'nonPositive'; set: 'x' | 'y'; arg: Expr }
+  /**
+   * "`arg` is supersymmetric in x_1..x_k; y_1..y_k", stated by the text (notation/supersymmetry.ts):
+   * the left side of a claim whose right side is the integer 1 (the statement holds).
+   */
+  | { type: 'supersymmetric'; arg: Expr; k: number }
 
 /** The Grassmannian Gr(k, n) of k-planes in ℂ^n, as named in the text (1 ≤ k ≤ n − 1). */
 export interface GrassmannianSpace {
@@ -150,6 +155,7 @@ export type ClaimKind =
   | 'kostka'
   | 'key'
   | 'backStable'
+  | 'supersymmetry'
   | 'grassmannian'
   | 'quantumGrassmannian'
   | 'coproduct'
@@ -158,7 +164,7 @@ export type ClaimKind =
 export const CLAIM_KINDS: readonly ClaimKind[] = [
   'schubert', 'grothendieck', 'stanley', 'symmetricFunction', 'polynomial', 'dividedDifference',
   'determinant', 'specialization', 'length', 'count', 'structureConstant', 'littlewoodRichardson',
-  'kostka', 'key', 'backStable', 'grassmannian', 'quantumGrassmannian', 'coproduct', 'unknown',
+  'kostka', 'key', 'backStable', 'supersymmetry', 'grassmannian', 'quantumGrassmannian', 'coproduct', 'unknown',
 ]
 
 /**
