@@ -87,6 +87,7 @@ function diffText(claim: ReportClaim): string {
   switch (diff.basis) {
     case 'number': return `written ${diff.claimed}, computed ${diff.computed}`
     case 'invariant': return `${diff.invariant}: written ${diff.claimed}, computed ${diff.computed}`
+    case 'property': return `${diff.property} fails: ${diff.computed}`
     default: {
       const terms = (list: { coefficient: string, term: string }[], total: number | undefined) => {
         const shown = list.slice(0, 8).map(t => `${t.coefficient}·${t.term}`).join(', ')

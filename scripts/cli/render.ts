@@ -114,6 +114,7 @@ function renderDiff(diff: ClaimDiff | null, indent: string, paint: Paint): strin
   switch (diff.basis) {
     case 'number': return [`${indent}written ${paint('bad', diff.claimed)}, computed ${paint('good', diff.computed)}`]
     case 'invariant': return [`${indent}${diff.invariant}: written ${paint('bad', diff.claimed)}, computed ${paint('good', diff.computed)}`]
+    case 'property': return [`${indent}${diff.property} fails: ${paint('bad', diff.computed)}`]
     default: {
       const out: string[] = []
       const more = (shown: number, total: number | undefined) => total !== undefined && total > shown ? paint('quiet', ` … and ${total - shown} more`) : ''

@@ -45,13 +45,14 @@ export function evaluateClaim(claim: Claim, options: { fixed?: Partial<Conventio
   // claim should still say under which other conventions it would hold.
   const axes = relevantAxes(claim.question.lhs, claim.question.rhs)
   const formalBeta = writesBeta(claim.question.lhs, claim.question.rhs)
+  const backStable = writesBackStable(claim.question.lhs, claim.question.rhs)
   const memo = options.memo ?? new Map()
   const variants: VariantResult[] = []
   try {
     for (const conventions of combinations(axes, fixed)) {
       // Each convention variant gets its own meter: the time limit is per evaluation, not shared.
     const meter = new BudgetMeter({ ...CLAIM_BUDGET, ...options.budget })
-      const comparison = compareSides(claim.question.lhs, claim.question.rhs, { conventions, meter, memo, formalBeta, ...(claim.question.setting ? { grassmannian: claim.question.setting } : {}) })
+      const comparison = compareSides(claim.question.lhs, claim.question.rhs, { conventions, meter, memo, formalBeta, ...(backStable ? { backStable } : {}), ...(claim.question.setting ? { grassmannian: claim.question.setting } : {}) })
       variants.push({ conventions, ...comparison })
     }
   }
@@ -121,7 +122,7 @@ function walk(exprs: readonly Expr[], visit: (e: Expr) => void): void {
     switch (e.type) {
       case 'add': walk(e.terms, visit); break
       case 'multiply': walk(e.factors, visit); break
-      case 'negate': case 'dividedDifference': case 'evaluateAtOnes': case 'integral': case 'coproduct': case 'specialise': walk([e.arg], visit); break
+      case 'negate': case 'dividedDifference': case 'evaluateAtOnes': case 'integral': case 'coproduct': case 'specialise': case 'nonPositive': case 'supersymmetric': walk([e.arg], visit); break
       case 'tensor': case 'formalGroup': walk([e.left, e.right], visit); break
       case 'power': walk([e.base], visit); break
       case 'determinant': walk(e.rows.flat(), visit); break
@@ -139,13 +140,22 @@ export function writesBeta(...exprs: Expr[]): boolean {
   return found
 }
 
+/** True if the claim writes ←S_w or a symmetric function in x_{≤0}: it is compared in the back-stable ring. */
+export function writesBackStable(...exprs: Expr[]): boolean {
+  let found = false
+  walk(exprs, (e) => {
+    if (e.type === 'backStable' || e.type === 'nonPositive') found = true
+  })
+  return found
+}
+
 /** Which convention axes can change the value of these expressions. */
 export function relevantAxes(...exprs: Expr[]): ConventionAxis[] {
   const found = new Set<ConventionAxis>()
   const formalBeta = writesBeta(...exprs)
   walk(exprs, (e) => {
     switch (e.type) {
-      case 'schubert':
+      case 'schubert': case 'backStable':
         found.add('indexing')
         if (e.variant === 'double') found.add('doubleSign')
         break
@@ -176,7 +186,7 @@ export function permutationsIn(...exprs: Expr[]): number[][] {
   }
   walk(exprs, (e) => {
     switch (e.type) {
-      case 'schubert': case 'grothendieck': case 'stanley': case 'length': case 'count': add(e.perm); break
+      case 'schubert': case 'grothendieck': case 'stanley': case 'length': case 'count': case 'backStable': add(e.perm); break
       case 'structureConstant': add(e.u); add(e.v); add(e.w); break
       default: break
     }

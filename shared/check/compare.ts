@@ -12,12 +12,13 @@ import type { ClaimDiff, DiffTerm, DiffWrongCoefficient } from '../types/report'
 import { DIFF_LIMIT } from '../types/report'
 import {
   combinationEntries, monomialLatex, partitionFromKey, Permutation, polynomialDifference, schubertAtOnes, schubertExpansion,
-  schubertProduct, addChecked, mulChecked, absCoefficient, toCoefficient, parametricDifference, parametricMonomialLatex,
+  schubertProduct, checkSupersymmetry, addChecked, mulChecked, absCoefficient, toCoefficient, parametricDifference, parametricMonomialLatex,
   type Coefficient, type SchubertCombination, type SchurCombination,
 } from '../math'
 import { evaluate, permutationOf, type EvaluationEnv } from './evaluate'
-import { commonDenominator, INFINITE_WITH_FINITE, numeratorOver, simplifyValue, toParametric, toPolynomial, UnsupportedClaimError, type Value } from './values'
+import { commonDenominator, INFINITE_WITH_FINITE, numeratorOver, simplifyValue, toBackStable, toParametric, toPolynomial, UnsupportedClaimError, type Value } from './values'
 import { compareInRing, isRingClaim } from './grassmannian'
+import { backStableDiff, backStableLatex } from './back-stable'
 
 export interface Comparison {
   holds: boolean
@@ -33,6 +34,10 @@ const COMPUTED_LATEX_TERMS = 120
 const INVARIANTS_FIRST_ABOVE = 5000n
 
 export function compareSides(lhs: Expr, rhs: Expr, env: EvaluationEnv): Comparison {
+  if (lhs.type === 'supersymmetric') {
+    const result = checkSupersymmetry(toPolynomial(evaluate(lhs.arg, env)), lhs.k, env.meter)
+    return { holds: result.supersymmetric, computed: result.message, diff: result.supersymmetric ? null : { basis: 'property', property: 'supersymmetry', computed: result.message } }
+  }
   if (isRingClaim(lhs, rhs, env.grassmannian)) return compareInRing(lhs, rhs, env, env.grassmannian)
   const early = invariantMismatch(lhs, rhs, env) ?? invariantMismatch(rhs, lhs, env, true)
   if (early) return early
@@ -47,6 +52,11 @@ export function compareSides(lhs: Expr, rhs: Expr, env: EvaluationEnv): Comparis
   const right = simplifyValue(evaluate(rhs, env))
   env.meter.checkTime()
   if (left.kind === 'parametric' || right.kind === 'parametric') return parametricComparison(left, right, env)
+  if (left.kind === 'backStable' || right.kind === 'backStable') {
+    const computed = toBackStable(left)
+    const diff = backStableDiff(computed, toBackStable(right))
+    return { holds: diff === null, computed: backStableLatex(computed, COMPUTED_LATEX_TERMS), diff }
+  }
   if (left.kind === 'number' && right.kind === 'number') {
     const holds = left.value === right.value
     return { holds, computed: left.value.toString(), diff: holds ? null : { basis: 'number', claimed: right.value.toString(), computed: left.value.toString() } }

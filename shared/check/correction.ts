@@ -173,6 +173,7 @@ export function rewriteRightSide(
   memo: EngineMemo = new Map(),
 ): RewrittenSide | NoCorrection {
   const { diff } = input
+  if (diff.basis === 'property') return none('a stated property is not rewritten')
   if (diff.basis === 'invariant') return none(`the difference was found from the ${diff.invariant} alone, without the full value`)
   // Grassmannian classes and tensors are written in notation the rewriter does not reproduce yet.
   if (diff.basis === 'class' || diff.basis === 'tensor') return none('a difference of Grassmannian classes or tensors is not rewritten automatically')

@@ -134,6 +134,7 @@ function describeConvention(id: ConventionId): string {
 }
 
 function verifiedMessage(claim: Claim): string {
+  if (claim.question?.lhs.type === 'supersymmetric') return `Supersymmetric in x_1..x_${claim.question.lhs.k}; y_1..y_${claim.question.lhs.k}, as stated.`
   return claim.question?.rhs.type === 'integer' ? 'The value agrees with the computation.' : 'Both sides agree term by term.'
 }
 
@@ -141,6 +142,7 @@ function mismatchMessage(diff: ClaimDiff | null): string {
   if (!diff) return 'The two sides differ.'
   switch (diff.basis) {
     case 'number': return `The manuscript has ${diff.claimed}; the computation gives ${diff.computed}.`
+    case 'property': return `Not ${diff.property === 'supersymmetry' ? 'supersymmetric' : diff.property}: ${diff.computed}.`
     case 'invariant': return `The ${diff.invariant} is ${diff.claimed} in the manuscript but ${diff.computed} by computation; found without expanding.`
     default: {
       const parts: string[] = []

@@ -28,6 +28,7 @@ import {
   addValues, formalDifference, formalSum, multiplyValues, negateValue, numberValue, powerValue, specialiseValue, toPolynomial,
   UnsupportedClaimError, type Value,
 } from './values'
+import { backStableTerms, liftSymmetric } from './back-stable'
 
 /** Engine results shared by every claim of a run (keys include everything the value depends on). */
 export type EngineMemo = Map<string, unknown>
@@ -40,6 +41,8 @@ export interface EvaluationEnv {
   grassmannian?: GrassmannianSetting
   /** The claim writes β (or ⊕, ⊖): Grothendieck polynomials keep β as a formal parameter. */
   formalBeta?: boolean
+  /** The claim writes ←S_w: values live in Λ(x_{≤0}) ⊗ ℤ[x, y], symmetric functions in x_0, x_{−1}, … (check/back-stable.ts). */
+  backStable?: boolean
 }
 
 /** The number β stands for, or null when it is formal. */
@@ -76,6 +79,12 @@ function partitionIn(parts: readonly number[], env: EvaluationEnv): number[] {
 
 /** Evaluate an expression to an exact value. Throws engine errors and UnsupportedClaimError. */
 export function evaluate(expr: Expr, env: EvaluationEnv): Value {
+  const value = evaluateNode(expr, env)
+  // In a back-stable claim a symmetric function written without variables is in x_0, x_{−1}, ….
+  return env.backStable && value.kind === 'symmetric' ? { kind: 'backStable', terms: liftSymmetric(value.schur, 'x') } : value
+}
+
+function evaluateNode(expr: Expr, env: EvaluationEnv): Value {
   env.meter.step()
   switch (expr.type) {
     case 'integer': return numberValue(BigInt(expr.value))
@@ -89,6 +98,18 @@ export function evaluate(expr: Expr, env: EvaluationEnv): Value {
       return { kind: 'polynomial', poly: expr.negatedY ? poly.negateY() : poly }
     }
     case 'grothendieck': return grothendieckValue(expr, env)
+    case 'backStable': {
+      const w = permutationIn(expr.perm, env)
+      const double = expr.variant === 'double'
+      const plus = double && env.conventions.doubleSign === 'xy-plus'
+      return { kind: 'backStable', terms: remember(env, `BS|${double}|${plus}|${w.key}`, () => backStableTerms(w, double, plus, env.meter)) }
+    }
+    case 'nonPositive': {
+      const arg = evaluate(expr.arg, { ...env, backStable: false })
+      if (arg.kind === 'number') return arg
+      if (arg.kind !== 'symmetric') throw new UnsupportedClaimError('only a symmetric function can be taken in the non-positive variables')
+      return { kind: 'backStable', terms: liftSymmetric(arg.schur, expr.set) }
+    }
     case 'stanley': {
       const w = permutationIn(expr.perm, env)
       return { kind: 'symmetric', schur: remember(env, `F|${w.key}`, () => stanleySymmetricFunction(w, { budget: env.meter })) }

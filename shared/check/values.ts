@@ -15,12 +15,15 @@ import {
   multiplySchurCombinations, partitionKey, Polynomial, addChecked, negateCoefficient, toCoefficient, ParametricPolynomial, BETA,
   type BudgetMeter, type SchurCombination,
 } from '../math'
+import { addTerms, liftPolynomial, liftSymmetric, multiplyTerms, negateTerms, polynomialPart, type BackStableTerms } from './back-stable'
 
 export type Value =
   | { kind: 'number', value: bigint }
   | { kind: 'polynomial', poly: Polynomial }
   | { kind: 'symmetric', schur: SchurCombination }
   | { kind: 'parametric', poly: ParametricPolynomial, denominator: number[], beta: number | null }
+  /** Λ(x_{≤0}) ⊗ Λ(y_{≤0}) ⊗ ℤ[x, y] of a back-stable claim (check/back-stable.ts). */
+  | { kind: 'backStable', terms: BackStableTerms }
 
 type ParametricValue = Extract<Value, { kind: 'parametric' }>
 
@@ -45,7 +48,20 @@ export function toPolynomial(v: Value): Polynomial {
     throw new UnsupportedClaimError('a polynomial with parameters (β, q, …) or a ⊖ denominator cannot be used here')
   }
   if (v.kind === 'number') return Polynomial.constant(safeNumber(v.value))
+  if (v.kind === 'backStable') {
+    const plain = polynomialPart(v.terms)
+    if (plain) return plain
+    throw new UnsupportedClaimError('a back-stable value (symmetric in x_0, x_{−1}, …) cannot be used here')
+  }
   throw new UnsupportedClaimError(INFINITE_WITH_FINITE)
+}
+
+/** `v` in the back-stable ring; a symmetric function without variables is taken in x_0, x_{−1}, …. */
+export function toBackStable(v: Value): BackStableTerms {
+  if (v.kind === 'backStable') return v.terms
+  if (v.kind === 'symmetric') return liftSymmetric(v.schur, 'x')
+  if (v.kind === 'parametric') throw new UnsupportedClaimError('back-stable polynomials with parameters (β, q, …) are not read')
+  return liftPolynomial(toPolynomial(v))
 }
 
 function toSymmetric(v: Value): SchurCombination {
@@ -55,8 +71,9 @@ function toSymmetric(v: Value): SchurCombination {
 }
 
 
-function combine(a: Value, b: Value): 'number' | 'polynomial' | 'symmetric' | 'parametric' {
+function combine(a: Value, b: Value): 'number' | 'polynomial' | 'symmetric' | 'parametric' | 'backStable' {
   if (a.kind === 'number' && b.kind === 'number') return 'number'
+  if (a.kind === 'backStable' || b.kind === 'backStable') return 'backStable'
   if (a.kind === 'symmetric' || b.kind === 'symmetric') return 'symmetric'
   if (a.kind === 'parametric' || b.kind === 'parametric') return 'parametric'
   return 'polynomial'
@@ -154,6 +171,7 @@ export function addValues(a: Value, b: Value): Value {
     case 'polynomial': return { kind: 'polynomial', poly: toPolynomial(a).add(toPolynomial(b)) }
     case 'symmetric': return { kind: 'symmetric', schur: addSchur(toSymmetric(a), toSymmetric(b), 1) }
     case 'parametric': return addParametric(toParametric(a, b), toParametric(b, a))
+    case 'backStable': return { kind: 'backStable', terms: addTerms(toBackStable(a), toBackStable(b)) }
   }
 }
 
@@ -161,6 +179,7 @@ export function negateValue(a: Value): Value {
   if (a.kind === 'number') return numberValue(-a.value)
   if (a.kind === 'polynomial') return { kind: 'polynomial', poly: a.poly.neg() }
   if (a.kind === 'parametric') return { ...a, poly: a.poly.neg() }
+  if (a.kind === 'backStable') return { kind: 'backStable', terms: negateTerms(a.terms) }
   return { kind: 'symmetric', schur: addSchur(new Map(), a.schur, -1) }
 }
 
@@ -170,6 +189,7 @@ export function multiplyValues(a: Value, b: Value, meter: BudgetMeter): Value {
     case 'polynomial': return { kind: 'polynomial', poly: toPolynomial(a).mul(toPolynomial(b), meter) }
     case 'symmetric': return { kind: 'symmetric', schur: multiplySchurCombinations(toSymmetric(a), toSymmetric(b), meter) }
     case 'parametric': return multiplyParametric(toParametric(a, b), toParametric(b, a), meter)
+    case 'backStable': return { kind: 'backStable', terms: multiplyTerms(toBackStable(a), toBackStable(b), meter) }
   }
 }
 

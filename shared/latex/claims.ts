@@ -21,6 +21,8 @@ import type { BindingScopes } from './bindings'
 import { arrayTableGrid, readTable, type TableGrid } from './tables'
 import { isSpaceBinding, settingForClaim } from './notation/grassmannian'
 import { readCompositionBinding } from './notation/k-theory'
+import type { ChernFamily } from './notation/back-stable'
+import { statedSupersymmetry, type StatedSupersymmetry } from './notation/supersymmetry'
 
 /** A line that shows its content on some slides only: `\only<2>{`, `\uncover<3->{`, `\item<2->`, `\onslide<2>`. */
 const OVERLAY_LINE = /\\(only|uncover|onslide|visible|item|alt)\s*<[^>\n]{1,16}>/
@@ -84,6 +86,8 @@ export interface ReadingState {
   conventions: ReadonlyMap<ConventionAxis, ConventionId>
   /** Parameters declared by `parameters` tags so far (notation/k-theory.ts). */
   parameters?: ReadonlySet<string>
+  /** Chern-class letters declared by `chern` tags so far (notation/back-stable.ts). */
+  chern?: ReadonlyMap<string, ChernFamily>
   /** The Grassmannian the text or a tag named, where σ_λ classes live. */
   grassmannian?: () => GrassmannianSetting | undefined
   /** Sees each region's math first, so that math naming a Grassmannian makes it the setting. */
@@ -149,6 +153,14 @@ export class ClaimReader {
     const regionLine = positionAt(region.file.starts, region.pos).line
     const definingLeadIn = !region.display && isDefiningLeadIn(proseBefore(region.file.masked, region.pos))
     const surroundings = surroundingsOf(region.file.masked, region.pos)
+    // One piece of math `P \text{ is supersymmetric in } x_1,x_2; y_1,y_2` (the statements stage would cut it at \text).
+    const stated = isOneExpression(tree) ? statedSupersymmetry(tree, undefined) : undefined
+    if (stated) {
+      const line = positionAt(region.file.starts, region.pos).line
+      const endLine = positionAt(region.file.starts, region.end).line
+      this.emitSupersymmetry({ region, label: undefined, regionLine, definingLeadIn, surroundings }, stated, tagsFor(region.file, line, endLine, regionLine))
+      return
+    }
     this.readStatementList(readStatements(tree, region.env), { region, regionLine, definingLeadIn, surroundings })
   }
 
@@ -187,7 +199,8 @@ export class ClaimReader {
     const setting = this.state.grassmannian?.()
     return {
       bindings: this.state.bindings.visible, notation: this.state.notation,
-      ...(this.state.parameters ? { parameters: this.state.parameters } : {}), ...(setting ? { grassmannian: setting } : {}),
+      ...(this.state.parameters ? { parameters: this.state.parameters } : {}), ...(this.state.chern?.size ? { chern: this.state.chern } : {}),
+      ...(setting ? { grassmannian: setting } : {}),
     }
   }
 
@@ -256,6 +269,11 @@ export class ClaimReader {
     const at = positionAt(file.starts, span.pos)
     const endLine = positionAt(file.starts, span.end).line
     const tags = tagsFor(file, at.line, endLine, place.regionLine)
+    const stated = statedSupersymmetry(nodes, region.display ? undefined : file.masked.slice(region.end, region.end + 300))
+    if (stated) {
+      this.emitSupersymmetry(place, stated, tags)
+      return
+    }
     const claimTag = tags.find(d => d.type === 'claim') as { kind?: ClaimKind } | undefined
     if (!claimTag) return
     this.output.pushClaim({
@@ -264,6 +282,32 @@ export class ClaimReader {
       kind: claimTag.kind ?? 'unknown', status: 'unsupported', reason: 'tagged as a claim, but there is no equation to check',
       conventions: this.activeConventions(useIds(tags)), display: region.display, tagged: true,
       ...(label ? { label } : {}),
+    })
+  }
+
+  /** "$P$ is supersymmetric in $x_1,x_2;y_1,y_2$" (notation/supersymmetry.ts): a claim when P is written out. */
+  private emitSupersymmetry(place: StepPlace, stated: StatedSupersymmetry, tags: TagDirective[]): void {
+    const { region, label } = place
+    const file = region.file
+    const span = spanOf(stated.polynomial)
+    if (!span) return
+    const read = SideParser.parseSide(stated.polynomial, this.parseContext())
+    if (!read.ok || (!containsObject(read.expr) && !exprTypes(read.expr).has('variable'))) {
+      this.output.pushNotRead(file, span.pos, span.end, read.ok ? 'a stated supersymmetry of a polynomial that is not written out' : read.reason)
+      return
+    }
+    const at = positionAt(file.starts, span.pos)
+    const context: Record<string, ContextValue> = Object.fromEntries(read.used)
+    const skip = tags.some(d => d.type === 'skip')
+    this.output.pushClaim({
+      file: file.path, line: at.line, endLine: positionAt(file.starts, span.end).line, column: at.column,
+      source: `${sliceTrim(file.original, span)} is supersymmetric in x_1..x_${stated.k}; y_1..y_${stated.k}`,
+      expandedSource: renderNodes(stated.polynomial), kind: 'supersymmetry', status: skip ? 'skipped' : 'ready',
+      question: { type: 'equality', lhs: { type: 'supersymmetric', arg: read.expr, k: stated.k }, rhs: { type: 'integer', value: '1' } },
+      conventions: this.activeConventions(useIds(tags)), display: region.display,
+      ...(skip ? { reason: 'a tag asks to skip this claim' } : {}),
+      ...(label ? { label } : {}),
+      ...(Object.keys(context).length ? { context } : {}),
     })
   }
 
@@ -364,6 +408,11 @@ export class ClaimReader {
     for (const id of use) byAxis.set(axisOfConvention(id)!, id)
     return [...byAxis.values()]
   }
+}
+
+/** Math with no relation and no row break at its top level. */
+function isOneExpression(tree: MathNode[]): boolean {
+  return !tree.some(n => (n.k === 'ch' && (n.v === '=' || n.v === '&')) || (n.k === 'cs' && (n.v === '\\' || n.v === 'cr')))
 }
 
 /** Tags on the lines of a claim, and on the line of its region's opener. */

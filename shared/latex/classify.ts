@@ -23,7 +23,9 @@ const KIND_PRIORITY: [Expr['type'] | 'schur-like', ClaimKind][] = [
   ['evaluateAtOnes', 'specialization'],
   ['specialise', 'specialization'],
   ['grothendieck', 'grothendieck'],
+  ['supersymmetric', 'supersymmetry'],
   ['keyPolynomial', 'key'],
+  ['backStable', 'backStable'],
   ['stanley', 'stanley'],
   ['schubert', 'schubert'],
   ['symmetric', 'symmetricFunction'],
@@ -43,6 +45,8 @@ export function exprTypes(e: Expr, into = new Set<Expr['type']>()): Set<Expr['ty
     case 'evaluateAtOnes':
     case 'dividedDifference':
     case 'specialise':
+    case 'nonPositive':
+    case 'supersymmetric':
       exprTypes(e.arg, into)
       break
     case 'formalGroup':

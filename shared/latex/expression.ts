@@ -20,6 +20,7 @@ import type { NotationObject } from './tags'
 import { alphabetOfList, declaredAlphabet, type Alphabet } from './notation/alphabet'
 import { UNREAD_MACRO_PREFIX, unreadMacroReason } from './macros'
 import { readGrassmannianSpace } from './notation/grassmannian'
+import { backStableAt, hasBackStableMarker, nonPositiveAlphabetAt, type ChernFamily } from './notation/back-stable'
 import { formalGroupOperator, hasKTheoryMarker, keyFamilyAt, KTheoryReadError, parameterOf, readComposition, readSpecialisation } from './notation/k-theory'
 
 /** Why a side could not be read. It is control flow, thrown and caught often, so it records no stack trace. */
@@ -43,6 +44,10 @@ export interface ParseContext {
   parameters?: ReadonlySet<string>
   /** The claim writes K-theory (\mathfrak{G}, ⊕, ⊖), so \beta is the parameter β. */
   kTheory?: boolean
+  /** Chern-class letters declared by a `chern` tag (notation/back-stable.ts). */
+  chern?: ReadonlyMap<string, ChernFamily>
+  /** The claim writes a back-stable Schubert polynomial, so declared Chern-class letters are read. */
+  backStable?: boolean
 }
 
 export type SideResult =
@@ -137,7 +142,10 @@ export class SideParser {
   static parseEquation(lhs: MathNode[], rhs: MathNode[], ctx: ParseContext): [SideResult, SideResult] {
     const alphabet = declaredAlphabet(lhs, rhs)
     const kTheory = hasKTheoryMarker(lhs, ctx) || hasKTheoryMarker(rhs, ctx)
-    const claimCtx: ParseContext = alphabet || kTheory ? { ...ctx, ...(alphabet ? { alphabet } : {}), ...(kTheory ? { kTheory } : {}) } : ctx
+    const backStable = hasBackStableMarker(lhs) || hasBackStableMarker(rhs)
+    const claimCtx: ParseContext = alphabet || kTheory || backStable
+      ? { ...ctx, ...(alphabet ? { alphabet } : {}), ...(kTheory ? { kTheory } : {}), ...(backStable ? { backStable } : {}) }
+      : ctx
     return [SideParser.parseSide(lhs, claimCtx), SideParser.parseSide(rhs, claimCtx)]
   }
 
@@ -325,6 +333,11 @@ export class SideParser {
       this.meaningful = true
       return { type: 'parameter', name: parameter }
     }
+    const backStableLength = backStableAt(this.nodes, this.i)
+    if (backStableLength) {
+      this.i += backStableLength
+      return this.backStable()
+    }
     const keyFamily = keyFamilyAt(this.nodes, this.i)
     if (keyFamily) {
       const start = this.i
@@ -350,6 +363,8 @@ export class SideParser {
       }
       if (alphabet?.kind === 'secondZ' && n.v === 'z') return this.variable('y', 'z')
       if (alphabet?.kind === 'indexed' && n.v === alphabet.letter && isCh(this.peek(), '_')) return this.variable('x', n.v)
+      const chern = this.ctx.backStable ? this.ctx.chern?.get(n.v) : undefined
+      if (chern && isCh(this.peek(), '_')) return this.chernClass(chern)
       switch (n.v) {
         case 'x':
         case 'y':
@@ -372,6 +387,10 @@ export class SideParser {
           if (this.ctx.grassmannian?.ring === 'quantum' && !isCh(this.peek(), '_')) {
             this.meaningful = true
             return { type: 'quantumParameter' }
+          }
+          // q next to classes of plain H*(Gr(k,n)): the paper may mean QH* without saying so; never guess.
+          if (this.ctx.grassmannian?.ring === 'cohomology' && !isCh(this.peek(), '_')) {
+            throw new ParseFail('q in H^*(Gr(k,n)), not QH^*: the quantum parameter is not read there')
           }
           break
         case 'C':
@@ -568,9 +587,11 @@ export class SideParser {
     if (number !== undefined && number !== 0 && !isStanleyIndex(sub, this.ctx)) throw new ParseFail(`F_{${describeNodes(sub)}} with a number that is no permutation names something else (a flag member, a term of a sequence)`)
     const perm = this.permutationFromScript(sub, 'F')
     this.recognised = true
-    this.variableArguments()
+    const nonPositive = nonPositiveAlphabetAt(this.nodes, this.i)
+    if (nonPositive) this.i += nonPositive.length
+    else this.variableArguments()
     this.meaningful = true
-    return { type: 'stanley', perm }
+    return nonPositive ? { type: 'nonPositive', set: nonPositive.set, arg: { type: 'stanley', perm } } : { type: 'stanley', perm }
   }
 
   private symmetric(family: SymmetricFamily, letterNode?: MathNode): Expr {
@@ -588,6 +609,17 @@ export class SideParser {
       skew = readPartition(skewShape.inner, this.ctx, this.used)
       if (skew.some((part, row) => part > (index[row] ?? 0))) throw new ParseFail(`(${skew.join(',')}) does not fit inside (${index.join(',')}), so ${letter}_{λ/μ} is not a skew shape`)
     } else index = multiplicative ? readMultiplicativeIndex(sub, this.ctx, this.used) : readPartition(sub, this.ctx, this.used)
+    // s_λ[x_-], s_λ(x_0, x_{-1}, \dots): in the non-positive variables (notation/back-stable.ts).
+    const nonPositive = nonPositiveAlphabetAt(this.nodes, this.i)
+    if (nonPositive) {
+      this.i += nonPositive.length
+      this.meaningful = true
+      const arg: Expr = { type: 'symmetric', family, index, ...(skew && skew.length ? { skew } : {}) }
+      const spread: Expr = multiplicative && index.length > 1
+        ? { type: 'multiply', factors: index.map(part => ({ type: 'symmetric', family, index: [part] })) }
+        : arg
+      return { type: 'nonPositive', set: nonPositive.set, arg: spread }
+    }
     const args = this.variableArguments()
     this.meaningful = true
     let variableCount: number | undefined
@@ -603,6 +635,32 @@ export class SideParser {
     const obj: Expr = multiplicative && index.length > 1 ? { type: 'multiply', factors: index.map(part => single([part])) } : single(index)
     if (args.kind === 'ones') return { type: 'evaluateAtOnes', arg: obj, variableCount: args.count }
     return obj
+  }
+
+  /** \overleftarrow{\mathfrak{S}}_w, ←S_w(x), ←S_w(x;y), with a power as for \mathfrak{S}. */
+  private backStable(): Expr {
+    this.recognised = true
+    const { sub, sup } = this.readScripts()
+    const exponent = sup ? readInteger(sup) : undefined
+    if (sup && exponent === undefined) throw new ParseFail('superscript on \\overleftarrow{\\mathfrak{S}} is not supported')
+    const perm = this.permutationFromScript(sub, '\\overleftarrow{\\mathfrak{S}}')
+    const args = this.variableArguments()
+    if (args.negatedY || args.kind === 'ones') throw new ParseFail('back-stable Schubert polynomials are read in (x) or (x;y) only')
+    this.meaningful = true
+    const value: Expr = { type: 'backStable', perm, variant: args.kind === 'double' ? 'double' : 'single' }
+    return exponent === undefined ? value : { type: 'power', base: value, exponent }
+  }
+
+  /** c_k under a `chern c h` tag: h_k (or e_k) in the non-positive variables; c_0 = 1. */
+  private chernClass(family: ChernFamily): Expr {
+    const { sub, sup } = this.readScripts()
+    if (sup) this.i -= 2
+    const k = sub ? readInteger(sub) : undefined
+    if (k === undefined) throw new ParseFail('a Chern class c_k needs an integer k')
+    this.recognised = true
+    this.meaningful = true
+    if (k === 0) return { type: 'integer', value: '1' }
+    return { type: 'nonPositive', set: 'x', arg: { type: 'symmetric', family, index: [k] } }
   }
 
   private lengthOf(): Expr {

@@ -103,7 +103,7 @@ export class ManuscriptFiles {
       const line = positionAt(file.starts, c.offset).line
       const target = c.wholeLine ? nextContentLine(file, line) : line
       for (const d of tag.directives) {
-        if (d.type === 'set' || d.type === 'means' || d.type === 'grassmannian' || d.type === 'parameters') file.events.push({ offset: c.offset, directive: d })
+        if (d.type === 'set' || d.type === 'means' || d.type === 'grassmannian' || d.type === 'parameters' || d.type === 'chern') file.events.push({ offset: c.offset, directive: d })
         else {
           const list = file.lineTags.get(target) ?? []
           list.push(d)

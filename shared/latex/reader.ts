@@ -17,6 +17,7 @@ import type { NotationObject, TagDirective } from './tags'
 import { splitRows, type MathNode } from './math-tree'
 import { proseBefore } from './precision'
 import { proseSaysGrassmannian, settingInMath, trailingSetting } from './notation/grassmannian'
+import type { ChernFamily } from './notation/back-stable'
 import type { ReaderLimits } from './limits'
 import { MATH_ENVIRONMENTS, TABLE_ENVIRONMENTS, collectMath, readEnvName, skipTableArguments, type Closer, type MathRegion } from './regions'
 import { textTableGrid } from './tables'
@@ -35,6 +36,8 @@ export class ReaderRun {
   private readonly notation = new Map<string, NotationObject>()
   /** Parameters declared by `parameters` tags (notation/k-theory.ts). */
   private readonly parameters = new Set<string>()
+  /** Chern-class letters declared by `chern` tags (notation/back-stable.ts). */
+  private readonly chern = new Map<string, ChernFamily>()
   private readonly protectedNames = new Set<string>()
   private readonly bindings = new BindingScopes()
   /** Environments that end the bindings made inside them (see bindings.ts). */
@@ -61,7 +64,7 @@ export class ReaderRun {
     this.sources = new ManuscriptFiles(files, limits, (code, message, file, offset) => this.warn(code, message, file, offset))
     this.output = new ClaimOutput(limits.maxClaims, (code, message) => this.warn(code, message))
     this.claimReader = new ClaimReader(this.output, {
-      bindings: this.bindings, notation: this.notation, conventions: this.conventions, parameters: this.parameters,
+      bindings: this.bindings, notation: this.notation, conventions: this.conventions, parameters: this.parameters, chern: this.chern,
       grassmannian: () => this.grassmannian,
       noteSetting: (region, tree) => this.noteSetting(region, tree),
     })
@@ -197,6 +200,8 @@ export class ReaderRun {
       this.protectedNames.add(d.macro)
     } else if (d.type === 'parameters') {
       for (const name of d.names) this.parameters.add(name)
+    } else if (d.type === 'chern') {
+      this.chern.set(d.letter, d.family)
     }
   }
 

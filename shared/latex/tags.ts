@@ -14,12 +14,15 @@
  *                             it inside its own environment or section
  *   parameters <names>        these letters are formal parameters from here on (q t \gamma); β is one
  *                             in K-theory claims without a tag (notation/k-theory.ts)
+ *   chern <letter> <h|e>      in back-stable claims c_k stands for h_k (or e_k) in x_0, x_{-1}, …
+ *                             (notation/back-stable.ts)
  * A tag at the end of a line attaches to claims on that line; a tag on a line of its own attaches
  * to the next line that is not blank or a comment (and to every claim of a display starting there).
  */
 import { axisOfConvention, type ConventionId } from '../types/conventions'
 import { CLAIM_KINDS, type ClaimKind, type GrassmannianSetting } from '../types/claims'
 import { settingFromTagWords } from './notation/grassmannian'
+import { chernFromTagWords, type ChernFamily } from './notation/back-stable'
 
 /** Objects a macro can be declared to mean. */
 export const NOTATION_OBJECTS = ['schubert', 'grothendieck', 'stanley', 'schur', 'elementary', 'complete', 'monomial', 'powersum'] as const
@@ -34,6 +37,7 @@ export type TagDirective =
   /** `in Gr(2,4)`, `in QH Gr(2,5)`; `setting: null` for `in Sym`. */
   | { type: 'grassmannian'; setting: GrassmannianSetting | null }
   | { type: 'parameters'; names: string[] }
+  | { type: 'chern'; letter: string; family: ChernFamily }
 
 export interface ParsedTag {
   directives: TagDirective[]
@@ -89,6 +93,10 @@ export function parseTag(text: string): ParsedTag {
       }
       if (words.length === 1) errors.push('"parameters" needs at least one name')
       if (names.length) directives.push({ type: 'parameters', names })
+    } else if (lower === 'chern') {
+      const chern = chernFromTagWords(words.slice(1))
+      if ('error' in chern) errors.push(chern.error)
+      else directives.push({ type: 'chern', ...chern })
     } else if (head.startsWith('\\') && words[1]?.toLowerCase() === 'means') {
       const obj = (words[2] ?? '').toLowerCase().replace(/-/g, '')
       const macro = head.slice(1)

@@ -97,6 +97,18 @@ export type Expr =
   | { type: 'specialise'; arg: Expr; parameter: string; value: string }
   /** Key polynomial κ_α (`key`) or Demazure atom A_α (`atom`) of a weak composition α. */
   | { type: 'keyPolynomial'; family: 'key' | 'atom'; composition: number[] }
+  /**
+   * Back-stable Schubert polynomial ←S_w (`\overleftarrow{\mathfrak{S}}_w`), single or double
+   * (factors x − y): symmetric in x_0, x_{−1}, … (and y_0, y_{−1}, …) times a polynomial in x_1, x_2, ….
+   */
+  | { type: 'backStable'; perm: PermutationSpec; variant: SchubertVariant }
+  /** A symmetric function without variables (`arg`) taken in the non-positive variables x_0, x_{−1}, … (or y_0, y_{−1}, …). */
+  | { type: 'nonPositive'; set: 'x' | 'y'; arg: Expr }
+  /**
+   * "`arg` is supersymmetric in x_1..x_k; y_1..y_k", stated by the text (notation/supersymmetry.ts):
+   * the left side of a claim whose right side is the integer 1 (the statement holds).
+   */
+  | { type: 'supersymmetric'; arg: Expr; k: number }
 
 /** The Grassmannian Gr(k, n) of k-planes in ℂ^n, as named in the text (1 ≤ k ≤ n − 1). */
 export interface GrassmannianSpace {
@@ -142,6 +154,8 @@ export type ClaimKind =
   | 'littlewoodRichardson'
   | 'kostka'
   | 'key'
+  | 'backStable'
+  | 'supersymmetry'
   | 'grassmannian'
   | 'quantumGrassmannian'
   | 'coproduct'
@@ -150,7 +164,7 @@ export type ClaimKind =
 export const CLAIM_KINDS: readonly ClaimKind[] = [
   'schubert', 'grothendieck', 'stanley', 'symmetricFunction', 'polynomial', 'dividedDifference',
   'determinant', 'specialization', 'length', 'count', 'structureConstant', 'littlewoodRichardson',
-  'kostka', 'key', 'grassmannian', 'quantumGrassmannian', 'coproduct', 'unknown',
+  'kostka', 'key', 'backStable', 'supersymmetry', 'grassmannian', 'quantumGrassmannian', 'coproduct', 'unknown',
 ]
 
 /**

@@ -48,6 +48,8 @@ export type ClaimDiff =
     notes?: string[]
   }
   | { basis: 'number', claimed: string, computed: string }
+  /** A property the text states of a polynomial (supersymmetry) and the condition of its definition that fails. */
+  | { basis: 'property', property: 'supersymmetry', computed: string }
   /** Found from invariants alone, without expanding (degree, value at (1,…,1), number of terms). */
   | { basis: 'invariant', invariant: 'degree' | 'value at ones' | 'number of terms', claimed: string, computed: string }
 

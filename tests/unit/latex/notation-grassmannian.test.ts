@@ -205,9 +205,10 @@ describe('verdicts in H*(Gr(2,4)) and QH*(Gr(2,4))', () => {
     expect(report.diff).toEqual({ basis: 'class', missing: [], extra: [], wrongCoefficient: [{ term: 'q\\sigma_{11}', claimed: '2', computed: '1' }] })
   })
 
-  it('q in a classical setting is not checked', () => {
-    const claims = checkManuscript({ files: { 'snippet.tex': 'In $H^*(\\mathrm{Gr}(2,4))$, $\\sigma_1\\sigma_{21} = \\sigma_{22} + q$.' } }).claims
-    expect(claims.map(c => [c.verdict, c.message])).toEqual([['unsupported', 'unknown symbol q']])
+  it('q in a classical setting is not checked: no verdict, listed as not read', () => {
+    const report = checkManuscript({ files: { 'snippet.tex': 'In $H^*(\\mathrm{Gr}(2,4))$, $\\sigma_1\\sigma_{21} = \\sigma_{22} + q$.' } })
+    expect(report.claims).toEqual([])
+    expect(readSnippet('In $H^*(\\mathrm{Gr}(2,4))$, $\\sigma_1\\sigma_{21} = \\sigma_{22} + q$.').notRead).toHaveLength(1)
   })
 })
 
@@ -240,3 +241,16 @@ function checkOne(tex: string) {
   if (claims.length !== 1) throw new Error(`expected one claim, got ${claims.length}`)
   return claims[0]!
 }
+
+// Regression: q next to classes of plain H*(Gr(k,n)) gave "unsupported" (unknown symbol q); it is
+// the paper's shorthand for QH* at best, so it is listed as not read and gets no verdict.
+describe('q in plain H^*', () => {
+  it('is not read, and gets no verdict', () => {
+    const r = readSnippet('In $H^*(\\mathrm{Gr}(2,4))$ we have $\\sigma_1 \\sigma_3 = q$.')
+    expect(r.claims).toEqual([])
+    expect(r.notRead.map(n => n.reason)).toEqual([expect.stringMatching(/q in H\^\*\(Gr\(k,n\)\), not QH\^\*/)])
+  })
+  it('is still read in QH^*', () => {
+    expect(readSnippet('In $QH^*(\\mathrm{Gr}(2,4))$ we have $\\sigma_1 \\sigma_{22} = q\\sigma_1$.').claims.map(c => c.status)).toEqual(['ready'])
+  })
+})
