@@ -80,7 +80,10 @@ describe('Chern-class letters declared by a tag', () => {
   })
   it('does not read c_k outside back-stable claims, nor without the tag', () => {
     expect(readSnippet('% scholium: chern c h\nThe Chern classes are $c(w) = (c_1, c_2)$ and $c_1 = 2$.').claims.every(c => c.status !== 'ready')).toBe(true)
-    expect(readSnippet('\\[ \\overleftarrow{\\mathfrak{S}}_{312} = c_2 + c_1 x_1 + x_1^2 \\]').claims.map(c => c.status)).toEqual(['unsupported'])
+    // Without the tag c_2 is a letter the paper has not declared: the math is not read (no verdict, no "unsupported").
+    const untagged = readSnippet('\\[ \\overleftarrow{\\mathfrak{S}}_{312} = c_2 + c_1 x_1 + x_1^2 \\]')
+    expect(untagged.claims).toEqual([])
+    expect(untagged.notRead).toHaveLength(1)
   })
 })
 
