@@ -14,7 +14,7 @@
  *   (a consequence of Monk's rule, as x_r = S_{s_r} − S_{s_{r−1}}).
  * - Monk's rule: S_{s_r} S_w = Σ_{j ≤ r < k, ℓ(w t_{jk}) = ℓ(w)+1} S_{w t_{jk}}.
  */
-import { Permutation } from './permutation'
+import { Permutation, trimFixedPoints } from './permutation'
 import { Polynomial, accumulate, decodeMonomial, encodeMonomial } from './polynomial'
 import { doubleSchubertPolynomial, packedSchubert, schubertPolynomial, transitionStep } from './schubert'
 import { NotInSpanError } from './errors'
@@ -281,12 +281,6 @@ export function structureConstant(u: Permutation, v: Permutation, w: Permutation
   return schubertProduct(u, v, budget).get(w.key) ?? 0
 }
 
-/** S_u · S_v by expanding the product polynomial (slow, independent path used as a cross-check). */
-export function schubertProductByExpansion(u: Permutation, v: Permutation, budget?: Budget | BudgetMeter): SchubertCombination {
-  const meter = toMeter(budget)
-  return schubertExpansion(schubertPolynomial(u, meter).mul(schubertPolynomial(v, meter), meter), { budget: meter })
-}
-
 /** S_u · S_v by the transition recursion on u (memoised), multiplying by x_r with the Monk-derived rule. */
 export function schubertProductByTransition(u: Permutation, v: Permutation, budget?: Budget | BudgetMeter): SchubertCombination {
   const meter = toMeter(budget)
@@ -295,12 +289,11 @@ export function schubertProductByTransition(u: Permutation, v: Permutation, budg
   const memo = new Map<string, Map<string, Coefficient>>()
   const base = new Map<string, Coefficient>([[toInternal(v), 1]])
   const go = (line: number[]): Map<string, Coefficient> => {
-    let n = line.length
-    while (n > 0 && line[n - 1] === n) n--
-    const key = line.slice(0, n).join(',')
+    const trimmed = trimFixedPoints(line)
+    const key = trimmed.join(',')
     const hit = memo.get(key)
     if (hit) return hit
-    const step = transitionStep(line.slice(0, n))
+    const step = transitionStep(trimmed)
     let result: Map<string, Coefficient>
     if (!step) result = base
     else {
@@ -321,13 +314,11 @@ export function transitionDagSize(w: Permutation, limit = 1e6): number {
   const seen = new Set<string>()
   const stack = [w.oneLine.slice()]
   while (stack.length > 0 && seen.size < limit) {
-    const line = stack.pop()!
-    let n = line.length
-    while (n > 0 && line[n - 1] === n) n--
-    const key = line.slice(0, n).join(',')
+    const trimmed = trimFixedPoints(stack.pop()!)
+    const key = trimmed.join(',')
     if (seen.has(key)) continue
     seen.add(key)
-    const step = transitionStep(line.slice(0, n))
+    const step = transitionStep(trimmed)
     if (step) { stack.push(step.v); for (const o of step.others) stack.push(o) }
   }
   return seen.size
@@ -439,10 +430,8 @@ function productByTransitionNumeric(u: Permutation, v: Permutation, ctx: Numeric
   // First pass: how many times each node of the transition recursion is used, so that an
   // intermediate combination is dropped as soon as its last user has read it (keeps memory low).
   const uses = new Map<string, number>()
-  const keyOf = (line: readonly number[]): { key: string; trimmed: number[] } => {
-    let n = line.length
-    while (n > 0 && line[n - 1] === n) n--
-    const trimmed = line.slice(0, n)
+  const keyOf = (line: readonly number[]): { key: string; trimmed: readonly number[] } => {
+    const trimmed = trimFixedPoints(line)
     return { key: trimmed.join(','), trimmed }
   }
   const visit = (line: readonly number[]): void => {

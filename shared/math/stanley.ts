@@ -15,7 +15,7 @@
  * - With our word convention (w = s_{a_1}⋯s_{a_ℓ}), F_{w⁻¹} = ω F_w and
  *   Σ_λ a_{wλ} f^λ = #reduced words of w.
  */
-import { Permutation, isGrassmannian } from './permutation'
+import { Permutation, isGrassmannian, trimFixedPoints } from './permutation'
 import { schubertPolynomial, transitionStep } from './schubert'
 import { partitionKey, schurExpansion, type SchurCombination } from './symmetric'
 import { addChecked } from './coefficient'
@@ -34,9 +34,7 @@ export function stanleySymmetricFunction(
   }
   const memo = new Map<string, SchurCombination>()
   const go = (line: number[]): SchurCombination => {
-    let n = line.length
-    while (n > 0 && line[n - 1] === n) n--
-    const trimmed = line.slice(0, n)
+    const trimmed = trimFixedPoints(line)
     // F is invariant under the shift 1 × w, so key on the shift-normal form too.
     let lead = 0
     while (lead < trimmed.length && trimmed[lead] === lead + 1) lead++
