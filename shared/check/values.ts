@@ -8,7 +8,7 @@
  *   a symmetric function with a polynomial in finitely many x would silently truncate.
  */
 import {
-  multiplySchurCombinations, partitionKey, Polynomial, addChecked, negateCoefficient, toCoefficient, type BudgetMeter, type SchurCombination,
+  addCombinations, multiplySchurCombinations, partitionKey, Polynomial, toCoefficient, type BudgetMeter, type SchurCombination,
 } from '../math'
 
 export type Value =
@@ -52,14 +52,14 @@ export function addValues(a: Value, b: Value): Value {
   switch (combine(a, b)) {
     case 'number': return numberValue((a as { value: bigint }).value + (b as { value: bigint }).value)
     case 'polynomial': return { kind: 'polynomial', poly: toPolynomial(a).add(toPolynomial(b)) }
-    case 'symmetric': return { kind: 'symmetric', schur: addSchur(toSymmetric(a), toSymmetric(b), 1) }
+    case 'symmetric': return { kind: 'symmetric', schur: addCombinations(toSymmetric(a), toSymmetric(b), 1) }
   }
 }
 
 export function negateValue(a: Value): Value {
   if (a.kind === 'number') return numberValue(-a.value)
   if (a.kind === 'polynomial') return { kind: 'polynomial', poly: a.poly.neg() }
-  return { kind: 'symmetric', schur: addSchur(new Map(), a.schur, -1) }
+  return { kind: 'symmetric', schur: addCombinations(new Map(), a.schur, -1) }
 }
 
 export function multiplyValues(a: Value, b: Value, meter: BudgetMeter): Value {
@@ -77,12 +77,3 @@ export function powerValue(a: Value, exponent: number, meter: BudgetMeter): Valu
   return result
 }
 
-function addSchur(a: SchurCombination, b: SchurCombination, sign: 1 | -1): SchurCombination {
-  const out = new Map(a)
-  for (const [key, c] of b) {
-    const next = addChecked(out.get(key) ?? 0, sign > 0 ? c : negateCoefficient(c))
-    if (next === 0) out.delete(key)
-    else out.set(key, next)
-  }
-  return out
-}

@@ -15,11 +15,11 @@
  *   lexicographically larger (first differing exponent, x_1 first, is larger in β).
  *   Keys and atoms of compositions with n parts are each a basis of ℤ[x_1..x_n].
  */
-import { Polynomial, accumulate, decodeMonomial } from './polynomial'
+import { Polynomial, decodeMonomial } from './polynomial'
 import { dividedDifference, isobaricDividedDifference } from './divided-difference'
 import { Permutation } from './permutation'
 import { schubertPolynomial } from './schubert'
-import { mulChecked, negateCoefficient, type Coefficient } from './coefficient'
+import { accumulate, mulChecked, negateCoefficient, type Coefficient } from './coefficient'
 import { InvalidArgumentError, NotInSpanError } from './errors'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 

@@ -15,10 +15,10 @@
  * - Monk's rule: S_{s_r} S_w = Σ_{j ≤ r < k, ℓ(w t_{jk}) = ℓ(w)+1} S_{w t_{jk}}.
  */
 import { Permutation, trimFixedPoints } from './permutation'
-import { Polynomial, accumulate, decodeMonomial, encodeMonomial } from './polynomial'
+import { Polynomial, decodeMonomial, encodeMonomial } from './polynomial'
 import { doubleSchubertPolynomial, packedSchubert, schubertPolynomial, transitionStep } from './schubert'
 import { NotInSpanError } from './errors'
-import { addChecked, mulChecked, negateCoefficient, type Coefficient } from './coefficient'
+import { accumulate, addChecked, mulChecked, negateCoefficient, type Coefficient } from './coefficient'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 
 export type SchubertCombination = Map<string, Coefficient>
@@ -143,15 +143,6 @@ function fromInternal(k: string): string {
   return vals.join(',')
 }
 
-function addTo(m: Map<string, Coefficient>, k: string, c: Coefficient): void {
-  const old = m.get(k)
-  if (old === undefined) m.set(k, c)
-  else {
-    const v = addChecked(old, c)
-    if (v === 0) m.delete(k)
-    else m.set(k, v)
-  }
-}
 
 /** x_r · Σ c_w S_w, as a combination (internal keys). */
 function multiplyByVariable(r: number, comb: Map<string, Coefficient>, meter: BudgetMeter): Map<string, Coefficient> {
@@ -167,7 +158,7 @@ function multiplyByVariable(r: number, comb: Map<string, Coefficient>, meter: Bu
       const wk = at(k)
       if (wk > wr && wk < m) {
         m = wk
-        addTo(out, swapKey(key, r, k), c)
+        accumulate(out, swapKey(key, r, k), c)
       }
     }
     // Down-moves t_{qr}, q < r: w(q) < w(r) with no value between in (w(q), w(r)).
@@ -176,7 +167,7 @@ function multiplyByVariable(r: number, comb: Map<string, Coefficient>, meter: Bu
       const wq = at(q)
       if (wq < wr && wq > M) {
         M = wq
-        addTo(out, swapKey(key, q, r), negateCoefficient(c))
+        accumulate(out, swapKey(key, q, r), negateCoefficient(c))
       }
     }
     meter.step(top)
@@ -255,7 +246,7 @@ function horner(monos: Mono[], order: readonly number[], depth: number, base: Ma
     const g = groups.get(a)
     if (g) {
       const part = horner(g, order, depth + 1, base, meter)
-      for (const [k, c] of part) addTo(acc, k, c)
+      for (const [k, c] of part) accumulate(acc, k, c)
     }
   }
   return acc
@@ -298,7 +289,7 @@ export function schubertProductByTransition(u: Permutation, v: Permutation, budg
     if (!step) result = base
     else {
       result = multiplyByVariable(step.r, go(step.v), meter)
-      for (const o of step.others) for (const [k, c] of go(o)) addTo(result, k, c)
+      for (const o of step.others) for (const [k, c] of go(o)) accumulate(result, k, c)
     }
     meter.step()
     memo.set(key, result)
@@ -369,6 +360,8 @@ function numericToPermutationKey(key: number, ctx: NumericContext): string {
   return Permutation.unchecked(line).key
 }
 
+// `accumulate` for the numeric product's hot loop: plain number addition, with addChecked only
+// called (to throw) past 2^53, where accumulate would switch to BigInt the product cannot hold.
 function addNum(m: Map<number, number>, k: number, c: number): void {
   const old = m.get(k)
   if (old === undefined) m.set(k, c)

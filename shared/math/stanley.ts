@@ -18,7 +18,7 @@
 import { Permutation, isGrassmannian, trimFixedPoints } from './permutation'
 import { schubertPolynomial, transitionStep } from './schubert'
 import { partitionKey, schurExpansion, type SchurCombination } from './symmetric'
-import { addChecked } from './coefficient'
+import { accumulate } from './coefficient'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 
 /** F_w in the Schur basis; e.g. F_{21} = s_1, F_{2143} = s_2 + s_{11}. */
@@ -51,7 +51,7 @@ export function stanleySymmetricFunction(
       const step = transitionStep(normal)!
       result = new Map()
       const add = (c: SchurCombination): void => {
-        for (const [k, v] of c) result.set(k, addChecked(result.get(k) ?? 0, v))
+        for (const [k, v] of c) accumulate(result, k, v)
       }
       for (const child of step.others) add(go(child))
       const vr = step.v[step.r - 1]!
@@ -65,7 +65,6 @@ export function stanleySymmetricFunction(
         shifted[step.r] = t
         add(go(shifted))
       }
-      for (const [k, v] of [...result]) if (v === 0) result.delete(k)
     }
     memo.set(key, result)
     meter.terms(memo.size, 'memoised permutations')
