@@ -7,11 +7,14 @@
 //   npx tsx scripts/bench-load.ts [base URL]           # against a running app (npm start)
 //   npx tsx scripts/bench-load.ts --compare <output>   # side by side: two app processes from a build
 //                                                      # (e.g. .cache/demo-output), report cache on / off
-// --compare starts `node <output>/server/index.mjs` twice on ports 3190 and 3191, with the NUXT_*
-// variables of this shell (npm start's local defaults when unset; NUXT_SESSION_PASSWORD falls back
-// to storage/demo/session-password), one with SCHOLIUM_REPORT_CACHE_ENTRIES=0, and measures one at a
-// time. A running worker is needed for the re-checks either way.
-// Options: --seconds N (default 20), --connections N (default 50).
+//   npx tsx scripts/bench-load.ts --compare <old output> --against <new output>   # two builds side by side
+// --compare starts `node <output>/server/index.mjs` twice on ports 3190 and 3191 (--port moves them),
+// with the NUXT_* variables of this shell (npm start's local defaults when unset; NUXT_SESSION_PASSWORD
+// falls back to storage/demo/session-password), one with SCHOLIUM_REPORT_CACHE_ENTRIES=0 (or, with
+// --against, the other build), and measures one at a time, alternating between the two phase by
+// phase, so that other load on the machine falls on both alike. A running worker is needed for the
+// re-checks either way.
+// Options: --seconds N (default 20), --connections N (default 50), --port N (default 3190).
 import { randomUUID } from 'node:crypto'
 import { spawn, type ChildProcess } from 'node:child_process'
 import { existsSync, readFileSync } from 'node:fs'
@@ -27,6 +30,8 @@ const option = (name: string) => {
 const seconds = Number(option('--seconds') ?? 20)
 const connections = Number(option('--connections') ?? 50)
 const compareOutput = option('--compare')
+const againstOutput = option('--against')
+const firstPort = Number(option('--port') ?? 3190)
 const base = compareOutput ? undefined : (args.find(a => a.startsWith('http')) ?? 'http://127.0.0.1:3000')
 
 class Session {
@@ -79,15 +84,45 @@ function percentile(sorted: number[], p: number): number {
   return sorted[Math.min(sorted.length - 1, Math.ceil(p / 100 * sorted.length) - 1)]!
 }
 
-interface Row { what: string, requests: number, rps: number, p50: number, p95: number, p99: number, max: number, failures: number }
+interface Row { what: string, requests: number, rps: number, p50: number, p95: number, p99: number, max: number, failures: number, toolCpu: number, appCpu: number, machineCpu: number }
+
+/** CPU seconds a process has used so far (Linux /proc), or NaN when unknown. */
+function processCpuSeconds(pid: number | undefined): number {
+  if (!pid) return NaN
+  try {
+    const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1]!.split(' ')
+    return (Number(fields[11]) + Number(fields[12])) / 100 // utime + stime, in clock ticks of 1/100 s
+  }
+  catch {
+    return NaN
+  }
+}
+
+/** Busy and total CPU ticks of the whole machine (all cores). */
+function machineTicks(): { busy: number, total: number } {
+  const [, ...ticks] = readFileSync('/proc/stat', 'utf8').split('\n')[0]!.trim().split(/\s+/).map(Number)
+  const total = ticks.reduce((a, b) => a + b, 0)
+  return { busy: total - ticks[3]! - ticks[4]!, total }
+}
+
+/** The pid serving a base URL, when this script started it (--compare). */
+const appPids = new Map<string, number>()
 
 async function load(what: string, url: string, cookie: string): Promise<Row> {
   const latencies: number[] = []
+  const appPid = appPids.get(new URL(url).origin)
+  const [tool0, app0, machine0] = [process.cpuUsage(), processCpuSeconds(appPid), machineTicks()]
   const instance = autocannon({ url, connections, duration: seconds, headers: { cookie } })
   instance.on('response', (_client, _status, _bytes, ms) => latencies.push(ms))
   const result = await instance
+  const tool = process.cpuUsage(tool0)
+  const machine1 = machineTicks()
   latencies.sort((a, b) => a - b)
   return {
+    // CPU shares in % of one core over the window (the machine's: of all its cores together).
+    toolCpu: Math.round((tool.user + tool.system) / 1e6 / seconds * 100),
+    appCpu: Math.round((processCpuSeconds(appPid) - app0) / seconds * 100),
+    machineCpu: Math.round((machine1.busy - machine0.busy) / (machine1.total - machine0.total) * 100),
     what,
     requests: result.requests.total,
     rps: Math.round(result.requests.total / seconds),
@@ -116,22 +151,30 @@ async function recheck(session: Session, revisionId: string): Promise<() => Prom
   }
 }
 
-async function measure(label: string, appBase: string): Promise<Row[]> {
+interface Target { label: string, session: Session, json: string, page: string, big: string }
+
+async function prepare(label: string, appBase: string): Promise<Target> {
   const session = new Session(appBase)
   await signIn(session, `load-${randomUUID().slice(0, 8)}@bench.scholium.example`, 'load benchmark password')
   const small = await uploadChecked(session, `Load benchmark 50 claims ${new Date().toISOString()}`, buildManuscript(50, 2, 4292))
   const big = await uploadChecked(session, `Load benchmark 1,000 claims ${new Date().toISOString()}`, buildManuscript(1000, 10, 5242))
-  const json = `${appBase}/api/revisions/${small}/report`
-  const page = `${appBase}/revisions/${small}`
+  return { label, session, json: `${appBase}/api/revisions/${small}/report`, page: `${appBase}/revisions/${small}`, big }
+}
+
+/** The four phases, each measured on every target in turn before the next phase. */
+async function measure(targets: Target[]): Promise<Row[]> {
   const rows: Row[] = []
-  rows.push(await load(`${label} report JSON, alone`, json, session.cookie))
-  rows.push(await load(`${label} report page, alone`, page, session.cookie))
-  for (const [what, url] of [['report JSON', json], ['report page', page]] as const) {
-    const finishedCount = await recheck(session, big)
-    const row = await load(`${label} ${what}, during 5 re-checks`, url, session.cookie)
-    row.what += ` (${await finishedCount()}/5 finished in the window)`
-    rows.push(row)
-    await waitFinished(session, big, 300_000)
+  for (const what of ['json', 'page'] as const) {
+    for (const t of targets) rows.push(await load(`${t.label} report ${what === 'json' ? 'JSON' : 'page'}, alone`, t[what], t.session.cookie))
+  }
+  for (const what of ['json', 'page'] as const) {
+    for (const t of targets) {
+      const finishedCount = await recheck(t.session, t.big)
+      const row = await load(`${t.label} report ${what === 'json' ? 'JSON' : 'page'}, during 5 re-checks`, t[what], t.session.cookie)
+      row.what += ` (${await finishedCount()}/5 finished in the window)`
+      rows.push(row)
+      await waitFinished(t.session, t.big, 300_000)
+    }
   }
   return rows
 }
@@ -158,23 +201,33 @@ function startApp(output: string, port: number, env: Record<string, string>): Pr
 
 const rows: Row[] = []
 if (compareOutput) {
-  for (const [label, port, entries] of [['cache on: ', 3190, '200'], ['cache off:', 3191, '0']] as const) {
-    const app = await startApp(compareOutput, port, { SCHOLIUM_REPORT_CACHE_ENTRIES: entries })
-    try {
-      rows.push(...await measure(label, `http://127.0.0.1:${port}`))
+  const apps: ChildProcess[] = []
+  try {
+    const sides = againstOutput
+      ? [[`old (${compareOutput}):`, compareOutput, '200'], [`new (${againstOutput}):`, againstOutput, '200']] as const
+      : [['cache on: ', compareOutput, '200'], ['cache off:', compareOutput, '0']] as const
+    const targets: Target[] = []
+    for (const [i, [label, output, entries]] of sides.entries()) {
+      const app = await startApp(output, firstPort + i, { SCHOLIUM_REPORT_CACHE_ENTRIES: entries })
+      apps.push(app)
+      appPids.set(`http://127.0.0.1:${firstPort + i}`, app.pid!)
+      targets.push(await prepare(label, `http://127.0.0.1:${firstPort + i}`))
     }
-    finally {
-      app.kill('SIGTERM')
-    }
+    rows.push(...await measure(targets))
+  }
+  finally {
+    for (const app of apps) app.kill('SIGTERM')
   }
 }
 else {
-  rows.push(...await measure('', base!))
+  rows.push(...await measure([await prepare('', base!)]))
 }
 
 console.log(`\n${connections} concurrent clients, ${seconds} s each; latency of every response in ms (autocannon 9.0.0 on the same machine)\n`)
-console.log('| what | requests | req/s | p50 | p95 | p99 | max | failures |')
-console.log('|------|---------:|------:|----:|----:|----:|----:|---------:|')
-for (const r of rows) console.log(`| ${r.what} | ${r.requests} | ${r.rps} | ${r.p50} | ${r.p95} | ${r.p99} | ${r.max} | ${r.failures} |`)
+console.log('CPU: % of one core used by this process (autocannon) and by the app during the window; machine: % of all cores busy (everything on it)\n')
+console.log('| what | requests | req/s | p50 | p95 | p99 | max | failures | tool CPU | app CPU | machine |')
+console.log('|------|---------:|------:|----:|----:|----:|----:|---------:|---------:|--------:|--------:|')
+const ms = (n: number) => Math.round(n)
+for (const r of rows) console.log(`| ${r.what} | ${r.requests} | ${r.rps} | ${ms(r.p50)} | ${ms(r.p95)} | ${ms(r.p99)} | ${r.max} | ${r.failures} | ${r.toolCpu}% | ${Number.isNaN(r.appCpu) ? '–' : `${r.appCpu}%`} | ${r.machineCpu}% |`)
 const jsonAlone = rows.filter(r => r.what.includes('report JSON'))
-for (const r of jsonAlone) console.log(`${r.what}: p95 ${r.p95} ms — goal (p95 < 200 ms) ${r.p95 < 200 ? 'met' : 'NOT met'}`)
+for (const r of jsonAlone) console.log(`${r.what}: p95 ${ms(r.p95)} ms — goal (p95 < 200 ms) ${r.p95 < 200 ? 'met' : 'NOT met'}`)

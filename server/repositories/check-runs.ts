@@ -43,6 +43,24 @@ export async function latestRunRowsByRevision(db: Db, revisionIds: string[]): Pr
     .execute()
 }
 
+/**
+ * The report route's question about a revision's runs, in one query: its newest members' run and
+ * the id of its newest finished members' run (the current report; what-if runs are neither).
+ * Undefined when the revision has no members' run.
+ */
+export async function latestAndReportRun(db: Db, revisionId: string): Promise<{ latest: CheckRunHead, reportRunId: string | null } | undefined> {
+  const row = await db.selectFrom('check_runs').select(HEAD_COLUMNS)
+    .select(eb => eb.selectFrom('check_runs as f').select('f.id')
+      .where('f.revision_id', '=', revisionId).where('f.status', '=', 'finished').where('f.what_if', '=', false)
+      .orderBy('f.finished_at', 'desc').limit(1).as('report_run_id'))
+    .where('revision_id', '=', revisionId).where('what_if', '=', false)
+    .orderBy('queued_at', 'desc').limit(1)
+    .executeTakeFirst()
+  if (!row) return undefined
+  const { report_run_id: reportRunId, ...latest } = row
+  return { latest, reportRunId: reportRunId ?? null }
+}
+
 /** One run row, or undefined. */
 export async function findCheckRun(db: Db, checkRunId: string): Promise<CheckRunHead | undefined> {
   return db.selectFrom('check_runs').select(HEAD_COLUMNS).where('id', '=', checkRunId).executeTakeFirst()

@@ -22,7 +22,7 @@ import type { ConventionSet } from '../../shared/types/conventions'
 import type { CheckRunView, CheckRunStatus } from '../../shared/types/api'
 import { replaceRunClaims } from '../repositories/claims'
 import {
-  findCheckRun, insertCheckRun, latestRunRowsByRevision, listQueuedRuns, loadRunSources, lockIfLeased, markAttemptFailed,
+  findCheckRun, insertCheckRun, latestAndReportRun, latestRunRowsByRevision, listQueuedRuns, loadRunSources, lockIfLeased, markAttemptFailed,
   markFinished, recordProgress, releaseDueRuns, renewLease, takeLease, type NewCheckRun,
 } from '../repositories/check-runs'
 import { anyLiveWorker } from '../repositories/workers'
@@ -99,6 +99,13 @@ export async function latestRunsByRevision(db: Db, revisionIds: string[]): Promi
   const rows = await latestRunRowsByRevision(db, revisionIds)
   const live = await liveWorkerFor(db, rows)
   return new Map(rows.map(r => [r.revision_id, checkRunView(r, live)]))
+}
+
+/** A revision's newest run as the API shows it, and the id of the run whose report is current. */
+export async function revisionRunState(db: Db, revisionId: string): Promise<{ run: CheckRunView | null, reportRunId: string | undefined }> {
+  const found = await latestAndReportRun(db, revisionId)
+  if (!found) return { run: null, reportRunId: undefined }
+  return { run: checkRunView(found.latest, await liveWorkerFor(db, [found.latest])), reportRunId: found.reportRunId ?? undefined }
 }
 
 /** A run's progress and status, or null if there is no such run. */

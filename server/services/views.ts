@@ -1,7 +1,7 @@
 import type { Db } from '../database/connect'
-import type { DeskSummary, ManuscriptView, ReviewListItem, RevisionView, SessionUser } from '#shared/types/api'
+import type { DeskSummary, ManuscriptView, ReviewListItem, RevisionFileView, RevisionView, SessionUser } from '#shared/types/api'
 import { listManuscriptMembers, listManuscriptsForUser } from '../repositories/manuscripts'
-import { listRevisionFiles, listRevisions } from '../repositories/revisions'
+import { findRevision, listRevisionFiles, listRevisions } from '../repositories/revisions'
 import { latestRunsByRevision } from '../services/check-runs'
 import { listAssignmentsForReferee, listSubmissionsForManuscript } from '../repositories/submissions'
 import { listVenuesForEditor } from '../repositories/venues'
@@ -22,6 +22,34 @@ export async function revisionViews(db: Db, manuscriptId: string, onlyRevisionId
     files: files.get(r.id) ?? [],
     latestRun: runs.get(r.id) ?? null,
   }))
+}
+
+/** What never changes about a revision: its number, main file and files. */
+export interface RevisionHead { number: number, mainFile: string | null, files: RevisionFileView[] }
+
+/**
+ * Revision heads, kept in this process. A stored revision never changes (a new upload is a new
+ * revision, written with its files in one transaction), so a head is read once per revision id;
+ * callers authorize first, so a deleted revision is never answered from here. Bounded; least
+ * recently used out first.
+ */
+const REVISION_HEADS = 2000
+const revisionHeads = new Map<string, RevisionHead>()
+
+/** A revision's head, e.g. for the report route: from memory after the first read. Undefined: no such revision. */
+export async function revisionHead(db: Db, revisionId: string): Promise<RevisionHead | undefined> {
+  const kept = revisionHeads.get(revisionId)
+  if (kept) {
+    revisionHeads.delete(revisionId)
+    revisionHeads.set(revisionId, kept)
+    return kept
+  }
+  const [revision, files] = await Promise.all([findRevision(db, revisionId), listRevisionFiles(db, [revisionId])])
+  if (!revision) return undefined
+  const head = { number: revision.number, mainFile: revision.main_file, files: files.get(revisionId) ?? [] }
+  revisionHeads.set(revisionId, head)
+  if (revisionHeads.size > REVISION_HEADS) revisionHeads.delete(revisionHeads.keys().next().value!)
+  return head
 }
 
 export async function manuscriptView(db: Db, grant: ManuscriptGrant): Promise<ManuscriptView> {

@@ -6,7 +6,7 @@
 import type { Claim, Expr, PermutationSpec } from '../types/claims'
 import { CONVENTION_AXES, REFERENCE_CONVENTIONS, axisOfConvention, type ConventionAxis, type ConventionId, type ConventionSet } from '../types/conventions'
 import type { ClaimDiff } from '../types/report'
-import { BudgetMeter, MathError, type Budget } from '../math'
+import { BETA, BudgetMeter, MathError, type Budget } from '../math'
 import { compareSides } from './compare'
 import { permutationOf, type EngineMemo } from './evaluate'
 import { INFINITE_WITH_FINITE, UnsupportedClaimError } from './values'
@@ -44,13 +44,14 @@ export function evaluateClaim(claim: Claim, options: { fixed?: Partial<Conventio
   // Fixed axes are varied too: the verdict is judged under the fixed choice, but a failing
   // claim should still say under which other conventions it would hold.
   const axes = relevantAxes(claim.question.lhs, claim.question.rhs)
+  const formalBeta = writesBeta(claim.question.lhs, claim.question.rhs)
   const memo = options.memo ?? new Map()
   const variants: VariantResult[] = []
   try {
     for (const conventions of combinations(axes, fixed)) {
       // Each convention variant gets its own meter: the time limit is per evaluation, not shared.
     const meter = new BudgetMeter({ ...CLAIM_BUDGET, ...options.budget })
-      const comparison = compareSides(claim.question.lhs, claim.question.rhs, { conventions, meter, memo, ...(claim.question.setting ? { grassmannian: claim.question.setting } : {}) })
+      const comparison = compareSides(claim.question.lhs, claim.question.rhs, { conventions, meter, memo, formalBeta, ...(claim.question.setting ? { grassmannian: claim.question.setting } : {}) })
       variants.push({ conventions, ...comparison })
     }
   }
@@ -120,8 +121,8 @@ function walk(exprs: readonly Expr[], visit: (e: Expr) => void): void {
     switch (e.type) {
       case 'add': walk(e.terms, visit); break
       case 'multiply': walk(e.factors, visit); break
-      case 'negate': case 'dividedDifference': case 'evaluateAtOnes': case 'integral': case 'coproduct': walk([e.arg], visit); break
-      case 'tensor': walk([e.left, e.right], visit); break
+      case 'negate': case 'dividedDifference': case 'evaluateAtOnes': case 'integral': case 'coproduct': case 'specialise': walk([e.arg], visit); break
+      case 'tensor': case 'formalGroup': walk([e.left, e.right], visit); break
       case 'power': walk([e.base], visit); break
       case 'determinant': walk(e.rows.flat(), visit); break
       default: break
@@ -129,15 +130,29 @@ function walk(exprs: readonly Expr[], visit: (e: Expr) => void): void {
   }
 }
 
+/** True if the claim writes β (as a parameter, in ⊕ or ⊖, or in a specialisation): β stays formal. */
+export function writesBeta(...exprs: Expr[]): boolean {
+  let found = false
+  walk(exprs, (e) => {
+    if ((e.type === 'parameter' && e.name === BETA) || e.type === 'formalGroup' || (e.type === 'specialise' && e.parameter === BETA)) found = true
+  })
+  return found
+}
+
 /** Which convention axes can change the value of these expressions. */
 export function relevantAxes(...exprs: Expr[]): ConventionAxis[] {
   const found = new Set<ConventionAxis>()
+  const formalBeta = writesBeta(...exprs)
   walk(exprs, (e) => {
     switch (e.type) {
-      case 'schubert': case 'grothendieck':
+      case 'schubert':
         found.add('indexing')
         if (e.variant === 'double') found.add('doubleSign')
-        if (e.type === 'grothendieck') found.add('beta')
+        break
+      case 'grothendieck':
+        found.add('indexing')
+        if (e.variant === 'double') found.add('kFactor')
+        if (!formalBeta) found.add('beta')
         break
       case 'stanley': found.add('indexing'); found.add('partition'); break
       case 'symmetric': if (e.family === 'schur') found.add('partition'); break

@@ -12,10 +12,11 @@ import type { ClaimDiff, DiffTerm, DiffWrongCoefficient } from '../types/report'
 import { DIFF_LIMIT } from '../types/report'
 import {
   accumulate, combinationEntries, monomialLatex, partitionFromKey, Permutation, polynomialDifference, schubertAtOnes, schubertExpansion,
-  schubertProduct, mulChecked, absCoefficient, toCoefficient, type Coefficient, type SchubertCombination, type SchurCombination,
+  schubertProduct, mulChecked, absCoefficient, toCoefficient, parametricDifference, parametricMonomialLatex,
+  type Coefficient, type SchubertCombination, type SchurCombination,
 } from '../math'
 import { evaluate, meantPermutation, permutationOf, type EvaluationEnv } from './evaluate'
-import { INFINITE_WITH_FINITE, toPolynomial, UnsupportedClaimError, type Value } from './values'
+import { commonDenominator, INFINITE_WITH_FINITE, numeratorOver, simplifyValue, toParametric, toPolynomial, UnsupportedClaimError, type Value } from './values'
 import { compareInRing, isRingClaim } from './grassmannian'
 
 export interface Comparison {
@@ -42,9 +43,10 @@ export function compareSides(lhs: Expr, rhs: Expr, env: EvaluationEnv): Comparis
     return combinationComparison(computed, claimedCombination, 'schubert', schubertTermLatex)
   }
 
-  const left = evaluate(lhs, env)
-  const right = evaluate(rhs, env)
+  const left = simplifyValue(evaluate(lhs, env))
+  const right = simplifyValue(evaluate(rhs, env))
   env.meter.checkTime()
+  if (left.kind === 'parametric' || right.kind === 'parametric') return parametricComparison(left, right, env)
   if (left.kind === 'number' && right.kind === 'number') {
     const holds = left.value === right.value
     return { holds, computed: left.value.toString(), diff: holds ? null : { basis: 'number', claimed: right.value.toString(), computed: left.value.toString() } }
@@ -65,6 +67,41 @@ export function compareSides(lhs: Expr, rhs: Expr, env: EvaluationEnv): Comparis
           difference.extra.length, difference.extra.slice(0, DIFF_LIMIT).map(t => monomialTerm(t.x, t.y, t.coefficient)),
           difference.wrongCoefficient.length, difference.wrongCoefficient.slice(0, DIFF_LIMIT).map(t => ({ term: monomialLatex(t.x, t.y) || '1', claimed: String(t.actual), computed: String(t.expected) }))),
   }
+}
+
+/**
+ * Sides over the parameter ring (β, q, …), possibly with ⊖ denominators ∏ (1 + βy_j)^{d_j}: both are
+ * brought to their common denominator and the numerators compared term by term, parameters included.
+ */
+function parametricComparison(left: Value, right: Value, env: EvaluationEnv): Comparison {
+  const l = toParametric(left, right)
+  const r = toParametric(right, left)
+  const d = commonDenominator(l, r)
+  const computed = numeratorOver(l, d, env.meter)
+  const claimed = numeratorOver(r, d, env.meter)
+  const difference = parametricDifference(computed, claimed)
+  const over = d.some(e => e > 0) ? denominatorLatex(d, l.beta) : ''
+  const term = (t: { parameters: Record<string, number>; x: readonly number[]; y: readonly number[] }) => parametricMonomialLatex(t.parameters, t.x, t.y) || '1'
+  return {
+    holds: difference.equal,
+    computed: over ? `\\frac{${computed.toLatex(COMPUTED_LATEX_TERMS)}}{${over}}` : computed.toLatex(COMPUTED_LATEX_TERMS),
+    diff: difference.equal
+      ? null
+      : limitDiff('monomial',
+          difference.missing.length, difference.missing.slice(0, DIFF_LIMIT).map(t => ({ term: term(t), coefficient: String(t.coefficient) })),
+          difference.extra.length, difference.extra.slice(0, DIFF_LIMIT).map(t => ({ term: term(t), coefficient: String(t.coefficient) })),
+          difference.wrongCoefficient.length, difference.wrongCoefficient.slice(0, DIFF_LIMIT).map(t => ({ term: term(t), claimed: String(t.actual), computed: String(t.expected) }))),
+  }
+}
+
+/** ∏ (1 + βy_j)^{d_j} in LaTeX, for the computed side of a ⊖ claim. */
+function denominatorLatex(d: readonly number[], beta: number | null): string {
+  const b = beta === null ? '\\beta ' : beta === 1 ? '' : beta === -1 ? '-' : `${beta}`
+  return d.map((e, j) => {
+    if (e === 0) return ''
+    const factor = beta !== null && beta < 0 ? `(1 - ${beta === -1 ? '' : -beta}y_{${j + 1}})` : `(1 + ${b}y_{${j + 1}})`
+    return e === 1 ? factor : `${factor}^{${e}}`
+  }).join('')
 }
 
 function schurOf(v: Value): SchurCombination {

@@ -3,7 +3,7 @@
  * claims, check every claim under them, and flag the claims that only hold under
  * a convention the rest of the paper does not follow.
  */
-import type { Claim } from '../types/claims'
+import type { Claim, Expr } from '../types/claims'
 import { CONVENTION_AXES, REFERENCE_CONVENTIONS, type ConventionAxis, type ConventionId, type ConventionSet } from '../types/conventions'
 import type { ClaimDiff, ConventionReport, ReportClaim, Verdict } from '../types/report'
 import type { ClaimEvaluation, VariantResult } from './claim'
@@ -74,16 +74,54 @@ export function decideClaim(claim: Claim, ev: ClaimEvaluation, conventions: Conv
   if (!nearest) return { ...result, verdict: 'mismatch', message: mismatchMessage(checked.diff) }
 
   const holdsUnder = nearest.differing.map(axis => nearest.v.conventions[axis] as ConventionId)
+  const slip = betaZeroSignSlip(claim, holdsUnder, effective)
   const breaking = nearest.differing.find(axis => conventions.inferred[axis] !== undefined && ev.fixed[axis] === undefined)
   const labels = holdsUnder.map(describeConvention).join(' and ')
   return {
     ...result,
     verdict: 'mismatch',
     holdsUnder,
-    message: breaking
+    message: slip ?? (breaking
       ? `Holds only with ${labels}, but the rest of the paper follows ${describeConvention(effective[breaking] as ConventionId)}.`
-      : `Holds only with ${labels}; under the conventions checked it fails.`,
+      : `Holds only with ${labels}; under the conventions checked it fails.`),
     ...(breaking ? { breaksPaperConvention: { axis: breaking, paper: effective[breaking] as ConventionId, claim: nearest.v.conventions[breaking] as ConventionId } } : {}),
+  }
+}
+
+/**
+ * A β = 0 specialisation of G_w(x; y) that holds only in the other double Grothendieck normalisation
+ * is the sign slip y_j ↦ −y_j: name it, and the normalisation the claim is checked in.
+ */
+function betaZeroSignSlip(claim: Claim, holdsUnder: ConventionId[], effective: ConventionSet): string | undefined {
+  if (holdsUnder.length !== 1 || (holdsUnder[0] !== 'k-oplus' && holdsUnder[0] !== 'k-ominus')) return undefined
+  const q = claim.question
+  if (!q || !hasBetaZeroOfDoubleGrothendieck(q.lhs) && !hasBetaZeroOfDoubleGrothendieck(q.rhs)) return undefined
+  const paper = effective.kFactor
+  const factor = paper === 'k-oplus' ? 'x_i ⊕ y_j' : 'x_i ⊖ y_j'
+  const gives = paper === 'k-oplus' ? 'S_w(x; −y), factors x_i + y_j' : 'S_w(x; y), factors x_i − y_j'
+  const other = paper === 'k-oplus' ? 'x_i ⊖ y_j' : 'x_i ⊕ y_j'
+  return `True only with y_j ↦ −y_j: the paper's G_w(x; y) uses ${factor}, so at β = 0 it is ${gives}; the stated value is what ${other} gives.`
+}
+
+function hasBetaZeroOfDoubleGrothendieck(e: Expr): boolean {
+  switch (e.type) {
+    case 'specialise': return e.parameter === 'beta' && e.value === '0' && containsDoubleGrothendieck(e.arg)
+    case 'add': return e.terms.some(hasBetaZeroOfDoubleGrothendieck)
+    case 'multiply': return e.factors.some(hasBetaZeroOfDoubleGrothendieck)
+    case 'negate': return hasBetaZeroOfDoubleGrothendieck(e.arg)
+    case 'power': return hasBetaZeroOfDoubleGrothendieck(e.base)
+    default: return false
+  }
+}
+
+function containsDoubleGrothendieck(e: Expr): boolean {
+  switch (e.type) {
+    case 'grothendieck': return e.variant === 'double'
+    case 'add': return e.terms.some(containsDoubleGrothendieck)
+    case 'multiply': return e.factors.some(containsDoubleGrothendieck)
+    case 'negate': case 'specialise': case 'evaluateAtOnes': return containsDoubleGrothendieck(e.arg)
+    case 'power': return containsDoubleGrothendieck(e.base)
+    default: return false
   }
 }
 

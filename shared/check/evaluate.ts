@@ -8,7 +8,10 @@
  * - partition 'shape-columns': every partition labelling a Schur function (and the
  *   shape of a Kostka number, and the partitions of a Littlewood–Richardson
  *   coefficient) is read transposed;
- * - beta: the β of Grothendieck polynomials (−1 or +1).
+ * - beta: the β of Grothendieck polynomials (−1 or +1) when the claim does not write β; a claim
+ *   that writes β (or ⊕, ⊖) keeps it formal (`formalBeta`), and the axis does not apply;
+ * - kFactor: a double Grothendieck polynomial G_w(x; y) in the ⊕ form ('k-oplus') or the ⊖ form
+ *   ('k-ominus', a rational function of y with denominators ∏ (1 + βy_j)).
  * Everything the manuscript writes explicitly (x_i, y_j, integers) is taken as written.
  */
 import type { Expr, GrassmannianSetting, PermutationSpec } from '../types/claims'
@@ -18,8 +21,13 @@ import {
   dividedDifference, doubleSchubertPolynomial, elementarySymmetric, grothendieckPolynomial, kostkaNumber, littlewoodRichardson,
   monomialSymmetric, partitionKey, Permutation, Polynomial, powerSum, schubertPolynomial, schurCombinationToPolynomial, skewSchurExpansion,
   schurExpansion, schurPolynomial, stanleySymmetricFunction, structureConstant, toPartition, type SchurCombination,
+  ParametricPolynomial, grothendieckFormal, doubleGrothendieckFormal, doubleGrothendieckOminusFormal, doubleGrothendieckByHecke,
+  doubleGrothendieckOminus, doubleGrothendieckPolynomial, keyPolynomial, demazureAtom,
 } from '../math'
-import { addValues, multiplyValues, negateValue, numberValue, powerValue, toPolynomial, UnsupportedClaimError, type Value } from './values'
+import {
+  addValues, formalDifference, formalSum, multiplyValues, negateValue, numberValue, powerValue, specialiseValue, toPolynomial,
+  UnsupportedClaimError, type Value,
+} from './values'
 
 /** Engine results shared by every claim of a run (keys include everything the value depends on). */
 export type EngineMemo = Map<string, unknown>
@@ -30,6 +38,13 @@ export interface EvaluationEnv {
   memo: EngineMemo
   /** The claim's Grassmannian (its question's `setting`): classes are compared in check/grassmannian.ts. */
   grassmannian?: GrassmannianSetting
+  /** The claim writes β (or ⊕, ⊖): Grothendieck polynomials keep β as a formal parameter. */
+  formalBeta?: boolean
+}
+
+/** The number β stands for, or null when it is formal. */
+function betaOf(env: EvaluationEnv): number | null {
+  return env.formalBeta ? null : env.conventions.beta === 'beta-plus' ? 1 : -1
 }
 
 function remember<T>(env: EvaluationEnv, key: string, compute: () => T): T {
@@ -82,19 +97,17 @@ export function evaluate(expr: Expr, env: EvaluationEnv): Value {
       const poly = schubertValue(permutationIn(expr.perm, env), expr.variant === 'double', env)
       return { kind: 'polynomial', poly: expr.negatedY ? poly.negateY() : poly }
     }
-    case 'grothendieck': {
-      if (expr.variant === 'double') throw new UnsupportedClaimError('double Grothendieck polynomials are not computed yet')
-      const w = permutationIn(expr.perm, env)
-      const beta = env.conventions.beta === 'beta-plus' ? 1 : -1
-      return { kind: 'polynomial', poly: remember(env, `G|${beta}|${w.key}`, () => grothendieckPolynomial(w, beta, env.meter)) }
-    }
+    case 'grothendieck': return grothendieckValue(expr, env)
     case 'stanley': {
       const w = permutationIn(expr.perm, env)
       return { kind: 'symmetric', schur: remember(env, `F|${w.key}`, () => stanleySymmetricFunction(w, { budget: env.meter })) }
     }
     case 'symmetric': return symmetricValue(expr, env)
     case 'dividedDifference': {
-      const arg = toPolynomial(evaluate(expr.arg, env))
+      const value = evaluate(expr.arg, env)
+      // ∂_i is linear over ℤ[parameters] and over functions of y (the ⊖ denominators), so it acts part by part.
+      if (value.kind === 'parametric') return { ...value, poly: value.poly.map(p => dividedDifference(p, expr.index, 'x', env.meter)) }
+      const arg = toPolynomial(value)
       return { kind: 'polynomial', poly: dividedDifference(arg, expr.index, 'x', env.meter) }
     }
     case 'determinant': {
@@ -109,7 +122,7 @@ export function evaluate(expr: Expr, env: EvaluationEnv): Value {
       if (arg.kind === 'number') return arg
       const poly = arg.kind === 'symmetric'
         ? symmetricInVariables(arg.schur, expr.variableCount, env)
-        : arg.poly
+        : toPolynomial(arg)
       const xCount = Math.max(expr.variableCount ?? 0, poly.maxIndex('x'))
       if (expr.variableCount !== undefined && poly.maxIndex('x') > expr.variableCount) {
         throw new UnsupportedClaimError(`the polynomial involves x_${poly.maxIndex('x')} but is evaluated at ${expr.variableCount} ones`)
@@ -134,8 +147,45 @@ export function evaluate(expr: Expr, env: EvaluationEnv): Value {
       return numberValue(littlewoodRichardson(partitionIn(expr.nu, env), partitionIn(expr.lambda, env), partitionIn(expr.mu, env)))
     case 'kostka':
       return numberValue(kostkaNumber(partitionIn(expr.shape, env), toPartition(expr.content)))
+    case 'parameter':
+      return { kind: 'parametric', poly: ParametricPolynomial.parameter(expr.name), denominator: [], beta: betaOf(env) }
+    case 'formalGroup': {
+      const left = evaluate(expr.left, env)
+      const right = evaluate(expr.right, env)
+      if (expr.op === 'oplus') return formalSum(left, right, env.meter)
+      return formalDifference(left, right, expr.right.type === 'variable' && expr.right.name === 'y' ? expr.right.index : undefined, env.meter)
+    }
+    case 'specialise':
+      return specialiseValue(evaluate(expr.arg, env), expr.parameter, BigInt(expr.value))
+    case 'keyPolynomial': {
+      const alpha = expr.composition
+      return { kind: 'polynomial', poly: expr.family === 'key' ? keyPolynomial(alpha, env.meter) : demazureAtom(alpha, env.meter) }
+    }
   }
   throw new UnsupportedClaimError('an expression Scholium cannot evaluate')
+}
+
+/**
+ * G_w or G_w(x; y) under the claim's β (formal or a number) and the kFactor convention. Beyond S_5 the
+ * numeric ⊕ form goes by the 0-Hecke route (double-grothendieck.ts), which avoids the large top class.
+ */
+function grothendieckValue(expr: Extract<Expr, { type: 'grothendieck' }>, env: EvaluationEnv): Value {
+  const w = permutationIn(expr.perm, env)
+  const double = expr.variant === 'double'
+  const ominus = double && env.conventions.kFactor === 'k-ominus'
+  const beta = betaOf(env)
+  if (beta === null) {
+    if (!double) return { kind: 'parametric', poly: remember(env, `Gf|${w.key}`, () => grothendieckFormal(w, env.meter)), denominator: [], beta }
+    if (!ominus) return { kind: 'parametric', poly: remember(env, `GGf|${w.key}`, () => doubleGrothendieckFormal(w, env.meter)), denominator: [], beta }
+    const r = remember(env, `GGf-|${w.key}`, () => doubleGrothendieckOminusFormal(w, env.meter))
+    return { kind: 'parametric', poly: r.numerator, denominator: r.denominator, beta }
+  }
+  if (!double) return { kind: 'polynomial', poly: remember(env, `G|${beta}|${w.key}`, () => grothendieckPolynomial(w, beta, env.meter)) }
+  if (!ominus) {
+    return { kind: 'polynomial', poly: remember(env, `GG|${beta}|${w.key}`, () => w.trimmed().size > 5 ? doubleGrothendieckByHecke(w, beta, env.meter) : doubleGrothendieckPolynomial(w, beta, env.meter)) }
+  }
+  const r = remember(env, `GG-|${beta}|${w.key}`, () => doubleGrothendieckOminus(w, beta, env.meter))
+  return { kind: 'parametric', poly: ParametricPolynomial.from(r.numerator), denominator: r.denominator, beta }
 }
 
 /** S_w or S_w(x;y) as the manuscript writes it under the current sign convention. */

@@ -20,6 +20,7 @@ import { readStatements, type ReadStatement } from './statements'
 import type { BindingScopes } from './bindings'
 import { arrayTableGrid, readTable, type TableGrid } from './tables'
 import { isSpaceBinding, settingForClaim } from './notation/grassmannian'
+import { readCompositionBinding } from './notation/k-theory'
 
 /** Claims and not-read entries of a run, numbered and bounded by the claim limit. */
 export class ClaimOutput {
@@ -64,6 +65,8 @@ export interface ReadingState {
   notation: ReadonlyMap<string, NotationObject>
   /** Conventions set by tags so far, one per axis. */
   conventions: ReadonlyMap<ConventionAxis, ConventionId>
+  /** Parameters declared by `parameters` tags so far (notation/k-theory.ts). */
+  parameters?: ReadonlySet<string>
   /** The Grassmannian the text or a tag named, where σ_λ classes live. */
   grassmannian?: () => GrassmannianSetting | undefined
   /** Sees each region's math first, so that math naming a Grassmannian makes it the setting. */
@@ -161,7 +164,10 @@ export class ClaimReader {
 
   private parseContext(): ParseContext {
     const setting = this.state.grassmannian?.()
-    return { bindings: this.state.bindings.visible, notation: this.state.notation, ...(setting ? { grassmannian: setting } : {}) }
+    return {
+      bindings: this.state.bindings.visible, notation: this.state.notation,
+      ...(this.state.parameters ? { parameters: this.state.parameters } : {}), ...(setting ? { grassmannian: setting } : {}),
+    }
   }
 
   /** An error claim for a region that could not be read (unclosed, unbalanced, runaway macro). */
@@ -253,7 +259,9 @@ export class ClaimReader {
       const used = new Map<string, ContextValue>()
       let value: ContextValue
       if (symbol.family === 'permutation') value = { kind: 'permutation', perm: readPermutation(valueNodes, ctx, used) }
-      else if (symbol.family === 'partition') value = { kind: 'partition', parts: readPartition(valueNodes, ctx, used) }
+      else if (symbol.family === 'partition') {
+        value = readCompositionBinding(symbol.name, valueNodes) ?? { kind: 'partition', parts: readPartition(valueNodes, ctx, used) }
+      }
       else {
         const text = valueNodes.map(n => (n.k === 'ch' ? n.v : '?')).join('')
         if (!/^[0-9]{1,6}$/.test(text)) return false

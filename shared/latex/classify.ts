@@ -21,7 +21,9 @@ const KIND_PRIORITY: [Expr['type'] | 'schur-like', ClaimKind][] = [
   ['count', 'count'],
   ['length', 'length'],
   ['evaluateAtOnes', 'specialization'],
+  ['specialise', 'specialization'],
   ['grothendieck', 'grothendieck'],
+  ['keyPolynomial', 'key'],
   ['stanley', 'stanley'],
   ['schubert', 'schubert'],
   ['symmetric', 'symmetricFunction'],
@@ -40,7 +42,12 @@ export function exprTypes(e: Expr, into = new Set<Expr['type']>()): Set<Expr['ty
     case 'negate':
     case 'evaluateAtOnes':
     case 'dividedDifference':
+    case 'specialise':
       exprTypes(e.arg, into)
+      break
+    case 'formalGroup':
+      exprTypes(e.left, into)
+      exprTypes(e.right, into)
       break
     case 'power':
       exprTypes(e.base, into)
@@ -62,7 +69,7 @@ export function exprTypes(e: Expr, into = new Set<Expr['type']>()): Set<Expr['ty
   return into
 }
 
-const POLYNOMIAL_TYPES = new Set<Expr['type']>(['integer', 'variable', 'add', 'negate', 'multiply', 'power'])
+const POLYNOMIAL_TYPES = new Set<Expr['type']>(['integer', 'variable', 'add', 'negate', 'multiply', 'power', 'parameter', 'formalGroup'])
 
 /** True if the expression holds more than integers and variables: `containsObject({type:'length',…}) === true`. */
 export function containsObject(e: Expr): boolean {

@@ -20,6 +20,7 @@ import type { NotationObject } from './tags'
 import { alphabetOfList, declaredAlphabet, type Alphabet } from './notation/alphabet'
 import { UNREAD_MACRO_PREFIX, unreadMacroReason } from './macros'
 import { readGrassmannianSpace } from './notation/grassmannian'
+import { formalGroupOperator, hasKTheoryMarker, keyFamilyAt, KTheoryReadError, parameterOf, readComposition, readSpecialisation } from './notation/k-theory'
 
 export class ParseFail extends Error {}
 
@@ -30,6 +31,10 @@ export interface ParseContext {
   alphabet?: Alphabet
   /** The Grassmannian the text has named (σ_λ and q are read only inside one). */
   grassmannian?: GrassmannianSetting
+  /** Parameters declared by a `parameters` tag (notation/k-theory.ts). */
+  parameters?: ReadonlySet<string>
+  /** The claim writes K-theory (\mathfrak{G}, ⊕, ⊖), so \beta is the parameter β. */
+  kTheory?: boolean
 }
 
 export type SideResult =
@@ -112,7 +117,7 @@ export class SideParser {
       const expr = p.parseAll()
       return { ok: true, expr, meaningful: p.meaningful, used: p.used }
     } catch (e) {
-      if (!(e instanceof ParseFail)) throw e
+      if (!(e instanceof ParseFail) && !(e instanceof KTheoryReadError)) throw e
       return { ok: false, reason: e.message, recognised: p.recognised || mentionsKnownObject(nodes, ctx), used: p.used }
     }
   }
@@ -123,12 +128,22 @@ export class SideParser {
    */
   static parseEquation(lhs: MathNode[], rhs: MathNode[], ctx: ParseContext): [SideResult, SideResult] {
     const alphabet = declaredAlphabet(lhs, rhs)
-    const claimCtx: ParseContext = alphabet ? { ...ctx, alphabet } : ctx
+    const kTheory = hasKTheoryMarker(lhs, ctx) || hasKTheoryMarker(rhs, ctx)
+    const claimCtx: ParseContext = alphabet || kTheory ? { ...ctx, ...(alphabet ? { alphabet } : {}), ...(kTheory ? { kTheory } : {}) } : ctx
     return [SideParser.parseSide(lhs, claimCtx), SideParser.parseSide(rhs, claimCtx)]
   }
 
   private parseAll(): Expr {
-    const e = this.parseSum()
+    // `\left. X \right|_{\beta=0}`: the opening \left. only pairs with the closing bar.
+    const leftDot = isCs(this.peek(), 'left') && isCh(this.peek(1), '.')
+    if (leftDot) this.i += 2
+    let e = this.parseSum()
+    const special = readSpecialisation(this.nodes, this.i, this.ctx)
+    if (special) {
+      this.i += special.length
+      this.recognised = true
+      e = { type: 'specialise', arg: e, parameter: special.parameter, value: special.value }
+    } else if (leftDot) throw new ParseFail('\\left. without a closing \\right|_{…}')
     if (this.i < this.nodes.length) {
       const n = this.nodes[this.i]!
       throw new ParseFail(isCh(n, ')') ? 'unbalanced ")"' : `unexpected ${describe(n)}`)
@@ -161,7 +176,16 @@ export class SideParser {
       sign = -1
     }
     for (;;) {
-      const t = this.parseTensorTerm()
+      let t = this.parseTensorTerm()
+      // a ⊕ b ⊕ c, left to right; mixing ⊕/⊖ with + or − at one level is not read.
+      while (formalGroupOperator(this.peek())) {
+        const op = formalGroupOperator(this.peek())!
+        if (terms.length > 0 || sign < 0) throw new ParseFail(`\\${op} next to + or − is ambiguous; write parentheses`)
+        this.i++
+        this.recognised = true
+        t = { type: 'formalGroup', op, left: t, right: this.parseTensorTerm() }
+        if (isCh(this.peek(), '+') || isCh(this.peek(), '-')) throw new ParseFail(`\\${op} next to + or − is ambiguous; write parentheses`)
+      }
       terms.push(sign < 0 ? { type: 'negate', arg: t } : t)
       if (isCh(this.peek(), '+')) sign = 1
       else if (isCh(this.peek(), '-')) sign = -1
@@ -174,7 +198,10 @@ export class SideParser {
   private startsFactor(n: MathNode | undefined): boolean {
     if (!n) return false
     if (n.k === 'ch') return !['+', '-', ')', ']', '=', '|', '^', '_', ',', ';'].includes(n.v)
-    if (n.k === 'cs') return n.v !== 'right' && n.v !== 'cdot' && n.v !== 'times' && n.v !== 'rvert' && n.v !== 'rangle' && n.v !== 'otimes' && !this.isClassProduct(n)
+    if (n.k === 'cs') {
+      return n.v !== 'right' && n.v !== 'cdot' && n.v !== 'times' && n.v !== 'rvert' && n.v !== 'rangle' && n.v !== 'otimes' && !this.isClassProduct(n)
+        && !formalGroupOperator(n) && !isSpecialisationBar(this.nodes, this.i, this.ctx)
+    }
     return true
   }
 
@@ -283,6 +310,28 @@ export class SideParser {
         return this.determinant(n)
       }
       throw new ParseFail(MATRIX_ENVS.has(n.name) ? `a matrix (${n.name}) is not a value; write \\det or use vmatrix` : `unsupported environment ${n.name}`)
+    }
+    const parameter = parameterOf(n, this.ctx)
+    if (parameter && !isCh(this.peek(1), '_')) {
+      this.i++
+      this.meaningful = true
+      return { type: 'parameter', name: parameter }
+    }
+    const keyFamily = keyFamilyAt(this.nodes, this.i)
+    if (keyFamily) {
+      const start = this.i
+      this.i += keyFamily.length
+      const { sub, sup } = this.readScripts()
+      if (sup) this.i -= 2
+      const composition = readComposition(sub!, this.ctx, this.used, keyFamily.family === 'atom')
+      if (!composition) {
+        this.i = start
+        throw new ParseFail(keyFamily.family === 'key' ? 'unknown symbol \\kappa' : 'unknown symbol \\mathcal{A}')
+      }
+      this.recognised = true
+      this.meaningful = true
+      this.variableArguments()
+      return { type: 'keyPolynomial', family: keyFamily.family, composition }
     }
     if (n.k === 'ch') {
       this.i++
@@ -429,8 +478,10 @@ export class SideParser {
     const { sub, sup } = this.readScripts()
     // A superscript that is a non-negative integer is a power (\mathfrak{S}_{132}^2); any other
     // superscript (\mathfrak{G}^{(\beta)}, \mathfrak{S}^{(n)}) is a different object.
-    const exponent = sup ? readInteger(sup) : undefined
-    if (sup && exponent === undefined) throw new ParseFail(`superscript on ${what} is not supported`)
+    // \mathfrak{G}^{(\beta)}_w and \mathfrak{G}^{\beta}_w name the parameter, not a power.
+    const namesBeta = type === 'grothendieck' && !!sup && isBetaSuperscript(sup, this.ctx)
+    const exponent = sup && !namesBeta ? readInteger(sup) : undefined
+    if (sup && !namesBeta && exponent === undefined) throw new ParseFail(`superscript on ${what} is not supported`)
     const perm = this.permutationFromScript(sub, what)
     const args = this.variableArguments()
     this.meaningful = true
@@ -793,6 +844,23 @@ function isSymmetricFunction(e: Expr): boolean {
     case 'negate': return isSymmetricFunction(e.arg)
     case 'power': return isSymmetricFunction(e.base)
     default: return false
+  }
+}
+
+/** `(\beta)` or `\beta` as the superscript of \mathfrak{G}. */
+function isBetaSuperscript(sup: MathNode[], ctx: ParseContext): boolean {
+  let ns = unwrap(sup)
+  if (isCh(ns[0], '(') && isCh(ns[ns.length - 1], ')')) ns = ns.slice(1, -1)
+  return ns.length === 1 && parameterOf(ns[0], ctx) === 'beta'
+}
+
+/** A bar that starts a specialisation `|_{\beta=0}` (possibly sized, `\big|`), so not a factor. */
+function isSpecialisationBar(nodes: MathNode[], at: number, ctx: ParseContext): boolean {
+  try {
+    return readSpecialisation(nodes, at, ctx) !== undefined
+  } catch (e) {
+    if (e instanceof KTheoryReadError) return false
+    throw e
   }
 }
 

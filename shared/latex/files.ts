@@ -24,7 +24,7 @@ export interface LoadedFile {
   encoding: ReadFileInfo['encoding']
   /** Tags attached to a line (skip, claim, use). */
   lineTags: Map<number, TagDirective[]>
-  /** Tags that act from their position on (set, means), by offset. */
+  /** Tags that act from their position on (set, means, in Gr(k,n), parameters), by offset. */
   events: { offset: number; directive: TagDirective }[]
 }
 
@@ -103,7 +103,7 @@ export class ManuscriptFiles {
       const line = positionAt(file.starts, c.offset).line
       const target = c.wholeLine ? nextContentLine(file, line) : line
       for (const d of tag.directives) {
-        if (d.type === 'set' || d.type === 'means' || d.type === 'grassmannian') file.events.push({ offset: c.offset, directive: d })
+        if (d.type === 'set' || d.type === 'means' || d.type === 'grassmannian' || d.type === 'parameters') file.events.push({ offset: c.offset, directive: d })
         else {
           const list = file.lineTags.get(target) ?? []
           list.push(d)

@@ -33,6 +33,8 @@ export class ReaderRun {
   /** Macros, user environments and theorem-like environment names, as defined so far. */
   readonly macroTable = new MacroTable()
   private readonly notation = new Map<string, NotationObject>()
+  /** Parameters declared by `parameters` tags (notation/k-theory.ts). */
+  private readonly parameters = new Set<string>()
   private readonly protectedNames = new Set<string>()
   private readonly bindings = new BindingScopes()
   /** Environments that end the bindings made inside them (see bindings.ts). */
@@ -59,7 +61,7 @@ export class ReaderRun {
     this.sources = new ManuscriptFiles(files, limits, (code, message, file, offset) => this.warn(code, message, file, offset))
     this.output = new ClaimOutput(limits.maxClaims, (code, message) => this.warn(code, message))
     this.claimReader = new ClaimReader(this.output, {
-      bindings: this.bindings, notation: this.notation, conventions: this.conventions,
+      bindings: this.bindings, notation: this.notation, conventions: this.conventions, parameters: this.parameters,
       grassmannian: () => this.grassmannian,
       noteSetting: (region, tree) => this.noteSetting(region, tree),
     })
@@ -193,6 +195,8 @@ export class ReaderRun {
     } else if (d.type === 'means') {
       this.notation.set(d.macro, d.object)
       this.protectedNames.add(d.macro)
+    } else if (d.type === 'parameters') {
+      for (const name of d.names) this.parameters.add(name)
     }
   }
 

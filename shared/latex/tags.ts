@@ -12,6 +12,8 @@
  *                             from here on σ_λ are classes of H*(Gr(k,n)) or QH*(Gr(k,n)), until the
  *                             next such tag ("in Sym" ends it); text naming a Grassmannian overrides
  *                             it inside its own environment or section
+ *   parameters <names>        these letters are formal parameters from here on (q t \gamma); β is one
+ *                             in K-theory claims without a tag (notation/k-theory.ts)
  * A tag at the end of a line attaches to claims on that line; a tag on a line of its own attaches
  * to the next line that is not blank or a comment (and to every claim of a display starting there).
  */
@@ -31,11 +33,15 @@ export type TagDirective =
   | { type: 'means'; macro: string; object: NotationObject }
   /** `in Gr(2,4)`, `in QH Gr(2,5)`; `setting: null` for `in Sym`. */
   | { type: 'grassmannian'; setting: GrassmannianSetting | null }
+  | { type: 'parameters'; names: string[] }
 
 export interface ParsedTag {
   directives: TagDirective[]
   errors: string[]
 }
+
+/** Letters that already name something the reader reads (variables, symmetric functions, coefficients). */
+const RESERVED_PARAMETER_LETTERS = new Set(['x', 'y', 'z', 's', 'e', 'h', 'm', 'p', 'c', 'C', 'F', 'K'])
 
 const TAG_PREFIX = /^\s*scholium\s*:/i
 
@@ -73,6 +79,16 @@ export function parseTag(text: string): ParsedTag {
       }
       if (words.length === 1) errors.push(`"${lower}" needs at least one convention id`)
       if (ids.length) directives.push({ type: lower, conventions: ids })
+    } else if (lower === 'parameters' || lower === 'parameter') {
+      const names: string[] = []
+      for (const w of words.slice(1)) {
+        const name = w.replace(/^\\/, '')
+        if (/^[A-Za-z]$/.test(name) && !RESERVED_PARAMETER_LETTERS.has(name)) names.push(name)
+        else if (/^[A-Za-z]{2,}$/.test(name) && w.startsWith('\\')) names.push(name)
+        else errors.push(`"${w}" cannot be a parameter (a letter other than ${[...RESERVED_PARAMETER_LETTERS].join(', ')}, or a Greek letter such as \\gamma)`)
+      }
+      if (words.length === 1) errors.push('"parameters" needs at least one name')
+      if (names.length) directives.push({ type: 'parameters', names })
     } else if (head.startsWith('\\') && words[1]?.toLowerCase() === 'means') {
       const obj = (words[2] ?? '').toLowerCase().replace(/-/g, '')
       const macro = head.slice(1)

@@ -85,7 +85,8 @@ export function doubleGrothendieckOminus(w: Permutation, beta = -1, budget?: Bud
   return reduceRational({ numerator: f, beta, denominator })
 }
 
-function permutationFromKey(key: string): Permutation {
+/** The permutation of a combination key ("2,1,3" or "" for the identity). */
+export function permutationFromKey(key: string): Permutation {
   return Permutation.fromOneLine(key === '' ? [] : key.split(',').map(Number))
 }
 

@@ -15,11 +15,12 @@
  *   lexicographically larger (first differing exponent, x_1 first, is larger in β).
  *   Keys and atoms of compositions with n parts are each a basis of ℤ[x_1..x_n].
  */
-import { Polynomial, decodeMonomial } from './polynomial'
+import { Polynomial } from './polynomial'
+import { compareLex, peelTriangular } from './triangular'
 import { dividedDifference, isobaricDividedDifference } from './divided-difference'
 import { Permutation } from './permutation'
 import { schubertPolynomial } from './schubert'
-import { accumulate, mulChecked, negateCoefficient, type Coefficient } from './coefficient'
+import type { Coefficient } from './coefficient'
 import { InvalidArgumentError, NotInSpanError } from './errors'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 
@@ -87,37 +88,17 @@ export function demazureAtom(alpha: readonly number[], budget?: Budget | BudgetM
   return demazureRecursion(alpha, atomMemo, (f, i, m) => dividedDifference(f, i, 'x', m).mul(Polynomial.x(i + 1), m), toMeter(budget))
 }
 
-/** Lexicographic comparison of exponent vectors, x_1 first (missing entries are 0). */
-function compareLex(a: readonly number[], b: readonly number[]): number {
-  const n = Math.max(a.length, b.length)
-  for (let i = 0; i < n; i++) {
-    const d = (a[i] ?? 0) - (b[i] ?? 0)
-    if (d !== 0) return d
-  }
-  return 0
-}
-
 function triangularExpansion(f: Polynomial, basis: (alpha: number[]) => Polynomial, within: number | undefined, name: string, meter: BudgetMeter): CompositionCombination {
-  const rest = new Map(f.terms)
-  const out: CompositionCombination = new Map()
-  while (rest.size > 0) {
-    meter.step(rest.size)
-    let best: number[] | undefined
-    let bestKey = ''
-    for (const k of rest.keys()) {
-      const e = decodeMonomial(k)
-      if (e.y.length > 0) throw new NotInSpanError(`the polynomial involves y-variables; ${name} span ℤ[x] only`)
-      if (best === undefined || compareLex(e.x, best) < 0) { best = e.x; bestKey = k }
-    }
-    if (within !== undefined && best!.length > within) {
-      throw new NotInSpanError(`not in the span of ${name} in x_1..x_${within}: the polynomial involves x_${best!.length}`)
-    }
-    const c = rest.get(bestKey)!
-    out.set(compositionKey(best!), c)
-    for (const [k, v] of basis(best!).terms) accumulate(rest, k, negateCoefficient(mulChecked(c, v)))
-    meter.terms(rest.size)
-  }
-  return out
+  // The lexicographically smallest monomial leads (see the module header).
+  return peelTriangular(f, {
+    compare: compareLex,
+    check: (x, y) => {
+      if (y.length > 0) throw new NotInSpanError(`the polynomial involves y-variables; ${name} span ℤ[x] only`)
+      if (within !== undefined && x.length > within) throw new NotInSpanError(`not in the span of ${name} in x_1..x_${within}: the polynomial involves x_${x.length}`)
+    },
+    label: compositionKey,
+    element: basis,
+  }, meter)
 }
 
 /**

@@ -14,7 +14,8 @@
  *   row r, #{k in rows ≤ r} ≤ #{k−1 in rows < r}, which is the lattice condition.
  * - ω is the involution with ω(s_λ) = s_{λ'} (λ' the conjugate partition).
  */
-import { Polynomial, decodeMonomial, encodeMonomial } from './polynomial'
+import { compareLex, peelTriangular } from './triangular'
+import { Polynomial, encodeMonomial } from './polynomial'
 import { InvalidArgumentError, NotSymmetricError } from './errors'
 import { accumulate, addChecked, mulChecked, type Coefficient } from './coefficient'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
@@ -209,31 +210,13 @@ export function schurExpansion(f: Polynomial, n = f.maxIndex('x'), budget?: Budg
   if (f.maxIndex('y') > 0) throw new NotSymmetricError('the polynomial involves y-variables')
   if (f.maxIndex('x') > n) throw new NotSymmetricError(`the polynomial involves x_${f.maxIndex('x')}, beyond x_${n}`)
   if (!f.isSymmetricIn('x', n)) throw new NotSymmetricError(`the polynomial is not symmetric in x_1..x_${n}`)
-  const rest = new Map(f.terms)
-  const out: SchurCombination = new Map()
-  while (rest.size > 0) {
-    meter.step(rest.size)
-    let best: number[] | undefined
-    let bestKey = ''
-    for (const k of rest.keys()) {
-      const e = decodeMonomial(k).x
-      if (best === undefined || compareLex(e, best) > 0) { best = e; bestKey = k }
-    }
-    const c = rest.get(bestKey)!
-    // The lexicographically largest monomial of a symmetric polynomial has partition exponents.
-    const lam = best!.filter(a => a > 0)
-    out.set(partitionKey(lam), c)
-    for (const [k, v] of schurPolynomial(lam, n, meter).terms) accumulate(rest, k, -mulChecked(c, v))
-  }
-  return out
-}
-
-function compareLex(a: readonly number[], b: readonly number[]): number {
-  for (let i = 0; i < Math.max(a.length, b.length); i++) {
-    const d = (a[i] ?? 0) - (b[i] ?? 0)
-    if (d !== 0) return d
-  }
-  return 0
+  // The lexicographically largest monomial of a symmetric polynomial has partition exponents
+  // and leads s_λ, so it leads the peeling (triangular.ts).
+  return peelTriangular(f, {
+    compare: (a, b) => compareLex(b, a),
+    label: e => partitionKey(e.filter(a => a > 0)),
+    element: e => schurPolynomial(e.filter(a => a > 0), n, meter),
+  }, meter)
 }
 
 /** s_λ · s_μ as a Schur combination by the Littlewood–Richardson rule; `maxRows` drops ν with more rows. */

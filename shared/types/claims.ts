@@ -86,6 +86,17 @@ export type Expr =
   | { type: 'tensor'; left: Expr; right: Expr }
   /** Δ(f): the coproduct of a symmetric function, Δ(s_λ) = Σ c^λ_{μν} s_μ ⊗ s_ν. */
   | { type: 'coproduct'; arg: Expr }
+  /**
+   * A formal parameter of the coefficient ring (shared/math/parameter-ring.ts): `beta` in a
+   * K-theory claim, or a letter the paper declares with a `parameters` tag (`q`, `t`, `gamma`).
+   */
+  | { type: 'parameter'; name: string }
+  /** `a \oplus b` = a + b + βab and `a \ominus b` = (a − b)/(1 + βb), β formal (shared/math/double-grothendieck.ts). */
+  | { type: 'formalGroup'; op: 'oplus' | 'ominus'; left: Expr; right: Expr }
+  /** `arg` with a parameter given a value, written `…|_{\beta=0}`; `value` is a decimal integer. */
+  | { type: 'specialise'; arg: Expr; parameter: string; value: string }
+  /** Key polynomial κ_α (`key`) or Demazure atom A_α (`atom`) of a weak composition α. */
+  | { type: 'keyPolynomial'; family: 'key' | 'atom'; composition: number[] }
 
 /** The Grassmannian Gr(k, n) of k-planes in ℂ^n, as named in the text (1 ≤ k ≤ n − 1). */
 export interface GrassmannianSpace {
@@ -130,6 +141,7 @@ export type ClaimKind =
   | 'structureConstant'
   | 'littlewoodRichardson'
   | 'kostka'
+  | 'key'
   | 'grassmannian'
   | 'quantumGrassmannian'
   | 'coproduct'
@@ -138,7 +150,7 @@ export type ClaimKind =
 export const CLAIM_KINDS: readonly ClaimKind[] = [
   'schubert', 'grothendieck', 'stanley', 'symmetricFunction', 'polynomial', 'dividedDifference',
   'determinant', 'specialization', 'length', 'count', 'structureConstant', 'littlewoodRichardson',
-  'kostka', 'grassmannian', 'quantumGrassmannian', 'coproduct', 'unknown',
+  'kostka', 'key', 'grassmannian', 'quantumGrassmannian', 'coproduct', 'unknown',
 ]
 
 /**
@@ -154,6 +166,8 @@ export type ContextValue =
   | { kind: 'permutation'; perm: PermutationSpec }
   | { kind: 'partition'; parts: Partition }
   | { kind: 'integer'; value: number }
+  /** A weak composition ("Let $\alpha = (0,2,1)$"), for key polynomials and atoms. */
+  | { kind: 'composition'; parts: number[] }
 
 export interface Claim {
   /** `file:line:index`, index counting claims that start on that line from 1; stable within a run. */

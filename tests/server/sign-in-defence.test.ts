@@ -3,7 +3,7 @@
 // sign-up that does not reveal accounts, and sessions that can be revoked.
 import { randomUUID } from 'node:crypto'
 import { describe, expect, it } from 'vitest'
-import { Client, db, mailsTo, newMember, waitForMail } from './helpers'
+import { baseUrl, Client, db, mailsTo, newMember, waitForMail } from './helpers'
 
 const PASSWORD = 'correct horse battery'
 const pairKey = (email: string) => `${email.toLowerCase()} 127.0.0.1`
@@ -89,6 +89,26 @@ describe('sessions can be revoked', () => {
     expect((await me.client.post('/api/auth/sign-out')).status).toBe(200)
     expect((await copy.get('/api/desk')).status).toBe(401)
     expect((await copy.get('/api/_auth/session')).body.user).toBeUndefined()
+  })
+
+  it('a cookie already unsealed and remembered (server/utils/unsealed-sessions.ts) still stops working at once on sign-out; an altered copy is refused (issue 11)', async () => {
+    const me = await newMember('remembered')
+    const copy = me.client.copy()
+    // Several reads, so the copy's cookie text has been unsealed once and is served from memory.
+    for (let i = 0; i < 3; i++) expect((await copy.get('/api/desk')).status).toBe(200)
+    const sealed = /nuxt-session=([^;]+)/.exec(copy.cookieHeader())![1]!
+    const at = Math.floor(sealed.length / 2)
+    const altered = sealed.slice(0, at) + (sealed[at] === 'A' ? 'B' : 'A') + sealed.slice(at + 1)
+    const forged = await fetch(new URL('/api/desk', baseUrl), { headers: { cookie: `nuxt-session=${altered}` } })
+    expect(forged.status).toBe(401)
+    expect((await me.client.post('/api/auth/sign-out')).status).toBe(200)
+    expect((await copy.get('/api/desk')).status).toBe(401)
+    expect((await copy.get('/api/_auth/session')).body.user).toBeUndefined()
+    // Removing the row by hand (another process) is seen at once as well: the check itself is not remembered.
+    const other = await newMember('remembered-row')
+    for (let i = 0; i < 3; i++) expect((await other.client.get('/api/desk')).status).toBe(200)
+    await db.deleteFrom('user_sessions').where('user_id', '=', other.id).execute()
+    expect((await other.client.get('/api/desk')).status).toBe(401)
   })
 
   it('ordinary sign-out ends this session only: the same account signed in elsewhere stays signed in (issue 11)', async () => {

@@ -1,9 +1,9 @@
 import { createHash } from 'node:crypto'
 import { z } from 'zod'
-import type { RevisionReportView } from '#shared/types/api'
-import { revisionViews } from '../../../services/views'
-import { checkRunProgress } from '../../../services/check-runs'
-import { findCheckRun, latestFinishedRun, loadRunReport } from '../../../repositories/check-runs'
+import type { CheckRunView, RevisionReportView } from '#shared/types/api'
+import { revisionHead } from '../../../services/views'
+import { checkRunProgress, revisionRunState } from '../../../services/check-runs'
+import { findCheckRun, loadRunReport } from '../../../repositories/check-runs'
 
 const Query = z.object({ run: z.string().uuid().optional() })
 
@@ -19,15 +19,20 @@ export default defineEventHandler(async (event): Promise<RevisionReportView | nu
   const { run: runId } = await queryAs(event, Query)
   const grant = await authorize(event, { revision: id })
   const db = useDb()
-  const [revision] = await revisionViews(db, grant.manuscriptId, id)
+  // Per request only the runs are read (one query); the revision's head never changes and comes
+  // from memory after the first read (services/views.ts), the finished report from the report cache.
+  const revision = await revisionHead(db, id)
   if (!revision) fail(404, 'not-found', 'No such revision')
-  let run = revision.latestRun
-  let reportRunId = (await latestFinishedRun(db, id))?.id
+  let run: CheckRunView | null
+  let reportRunId: string | undefined
   if (runId) {
     const row = await findCheckRun(db, runId)
     if (!row || row.revision_id !== id) fail(404, 'not-found', 'No such check run')
     run = await checkRunProgress(db, runId)
     reportRunId = row.status === 'finished' ? row.id : undefined
+  }
+  else {
+    ({ run, reportRunId } = await revisionRunState(db, id))
   }
   const head = {
     manuscript: { id: grant.manuscriptId, title: grant.title },
