@@ -1,12 +1,13 @@
 /**
  * Benchmark of the `scholium` command as a user runs it (not a test): whole process against
  * whole process, in one run, so that the ratios hold on a noisy machine.
- *   npx tsx scripts/bench-cli.ts [--reps N]
+ *   npx tsx scripts/bench-cli.ts [--reps N] [--against <an earlier build's scholium.mjs>]
  * Compared side by side: bare `node -e 0`, the development launcher (bin/scholium.mjs, which
  * compiles TypeScript through tsx at start) and the bundled command (dist/cli/scholium.mjs,
  * built by scripts/build-cli.mjs), on a one-claim file and on the synthetic 1,000-claim
  * manuscript of the check benchmark. Goal: a one-claim file in under 150 ms, and paper-size
- * inputs no slower than the development launcher.
+ * inputs no slower than the development launcher. `--against` races an earlier build of the
+ * command too (e.g. one built from main in another checkout), for before/after in one run.
  */
 import { execFileSync, spawnSync } from 'node:child_process'
 import { mkdtempSync, mkdirSync, rmSync, writeFileSync } from 'node:fs'
@@ -19,6 +20,8 @@ import { buildManuscript } from './lib/synthetic-manuscript'
 const root = join(dirname(fileURLToPath(import.meta.url)), '..')
 const repsFlag = process.argv.indexOf('--reps')
 const reps = repsFlag > 0 ? Number(process.argv[repsFlag + 1]) : 15
+const againstFlag = process.argv.indexOf('--against')
+const against = againstFlag > 0 ? process.argv[againstFlag + 1] : undefined
 
 execFileSync(process.execPath, [join(root, 'scripts/build-cli.mjs')], { stdio: 'inherit' })
 const scratch = mkdtempSync(join(tmpdir(), 'scholium-bench-cli-'))
@@ -51,11 +54,15 @@ function race(commands: Record<string, string[]>): Record<string, number> {
 
 const launcher = join(root, 'bin/scholium.mjs')
 const bundle = join(root, 'dist/cli/scholium.mjs')
-const small = race({ 'bare node': ['-e', '0'], 'tsx launcher': [launcher, 'check', oneClaim], bundled: [bundle, 'check', oneClaim] })
-const large = race({ 'tsx launcher': [launcher, 'check', paper], bundled: [bundle, 'check', paper] })
+const earlier = (args: string[]): Record<string, string[]> => against ? { earlier: [against, ...args] } : {}
+const small = race({ 'bare node': ['-e', '0'], 'tsx launcher': [launcher, 'check', oneClaim], bundled: [bundle, 'check', oneClaim], ...earlier(['check', oneClaim]) })
+const large = race({ 'tsx launcher': [launcher, 'check', paper], bundled: [bundle, 'check', paper], ...earlier(['check', paper]) })
 rmSync(scratch, { recursive: true, force: true })
 
 const ms = (t: number) => `${t.toFixed(0)} ms`
 console.log(`whole-process medians over ${reps} alternating runs`)
 console.log(`one-claim file:   bare node ${ms(small['bare node']!)}, tsx launcher ${ms(small['tsx launcher']!)}, bundled ${ms(small.bundled!)}  (bundled / launcher = ${(small.bundled! / small['tsx launcher']!).toFixed(2)}, bundled / bare node = ${(small.bundled! / small['bare node']!).toFixed(2)})`)
 console.log(`1,000-claim paper: tsx launcher ${ms(large['tsx launcher']!)}, bundled ${ms(large.bundled!)}  (bundled / launcher = ${(large.bundled! / large['tsx launcher']!).toFixed(2)})`)
+if (against) {
+  console.log(`earlier build (${against}): one-claim file ${ms(small.earlier!)}, 1,000-claim paper ${ms(large.earlier!)}  (bundled / earlier = ${(small.bundled! / small.earlier!).toFixed(2)} and ${(large.bundled! / large.earlier!).toFixed(2)})`)
+}

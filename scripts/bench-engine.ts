@@ -4,7 +4,10 @@
  * (a) Schubert structure constants for a fixed list of products in S_7–S_10, side by side with
  *     Debian's lrcalc `schubmult` on the same inputs (results compared too). Reported:
  *     our in-process time (cold first call, warm median), our whole-process time (a fresh node
- *     process running a bundled copy of the engine), lrcalc's whole-process time, and ratios.
+ *     process running a bundled copy of the engine), the installed command's whole-process time
+ *     (`scholium check` from dist/cli on a one-claim .tex file stating the product as lrcalc
+ *     prints it, which must come out verified; products up to 3,000 terms, the reader's limit), lrcalc's
+ *     whole-process time, and ratios.
  * (b) Every S_w for w ∈ S_8 (goal: < 2 s), and a fixed set of S_w in S_10 with > 10^4 terms.
  * (c) Bumpless pipe dream enumeration on a fixed set.
  * (d) Double Grothendieck polynomials G_w(x; y) in S_7 by both engine routes.
@@ -24,6 +27,8 @@ import {
 
 const here = dirname(fileURLToPath(import.meta.url))
 const quick = process.argv.includes('--quick')
+/** `--products`: part (a) only. */
+const onlyProducts = process.argv.includes('--products')
 const SCHUBMULT = '/usr/bin/schubmult'
 
 const PRODUCTS: [string, string][] = [
@@ -71,6 +76,20 @@ process.stdout.write(out)
   return outfile
 }
 
+/** A one-claim manuscript stating S_u · S_v = Σ c_w S_w with lrcalc's terms, for the command line. */
+function productClaimTex(u: Permutation, v: Permutation, lrcalcOut: string): string {
+  const S = (line: readonly number[]) => `\\mathfrak{S}_{[${line.join(',')}]}`
+  const terms: string[] = []
+  for (const line of lrcalcOut.split('\n')) {
+    const match = /^(-?\d+)\s+\(([\d,\s]*)\)$/.exec(line.trim())
+    if (match) terms.push(`${match[1] === '1' ? '' : `${match[1]}\\,`}${S(match[2]!.split(',').map(x => Number(x.trim())))}`)
+  }
+  return `\\documentclass{article}\n\\begin{document}\n\\[ ${S(u.oneLine)}${S(v.oneLine)} = ${terms.join(' + ')} \\]\n\\end{document}\n`
+}
+
+/** The reader gives up on a display of more than 50,000 tokens: about 3,000 terms of S_{[…]}. */
+const CLI_MAX_TERMS = 3_000
+
 function parseSchubmult(out: string): Map<string, number> {
   const m = new Map<string, number>()
   for (const line of out.split('\n')) {
@@ -84,6 +103,11 @@ async function main(): Promise<void> {
   console.log(`Scholium math engine ${ENGINE_VERSION} — node ${process.version}, ${quick ? 'quick run' : 'full run'}\n`)
   if (!existsSync(SCHUBMULT)) throw new Error(`${SCHUBMULT} is missing: install Debian's lrcalc package`)
 
+  if (!onlyProducts) otherParts()
+  await products()
+}
+
+function otherParts(): void {
   // (b) Schubert polynomials
   const [family, famMs] = time(() => SchubertFamily.compute(8))
   const [, matMs] = time(() => {
@@ -125,11 +149,16 @@ async function main(): Promise<void> {
   console.log('(d) double Grothendieck polynomials G_w(x; y) in S_7, β = −1 (ms)')
   table(['w', 'ℓ(w)', 'terms', 'divided differences', '0-Hecke Cauchy', 'agree'], rowsD)
   console.log(`peak memory so far (max RSS): ${(process.resourceUsage().maxRSS / 1024).toFixed(0)} MB\n`)
+}
+
+async function products(): Promise<void> {
   // (a) products
   const dir = mkdtempSync(join(tmpdir(), 'scholium-bench-'))
   const worker = await bundleWorker(dir)
   const baseReps = quick ? 1 : 3
   const [, bareNode] = time(() => execFileSync(process.execPath, ['-e', '0']))
+  execFileSync(process.execPath, [resolve(here, 'build-cli.mjs')], { stdio: 'ignore' })
+  const cli = resolve(here, '../dist/cli/scholium.mjs')
   const rows: string[][] = []
   let sumOurs = 0
   let sumTheirs = 0
@@ -139,26 +168,43 @@ async function main(): Promise<void> {
     const args = [...u.oneLine.map(String), '-', ...v.oneLine.map(String)]
     const [first, cold] = time(() => schubertProduct(u, v))
     const reps = cold > 2000 ? 1 : baseReps
+    const processReps = cold > 2000 ? 1 : quick ? 1 : 7
     const warm = median(Array.from({ length: reps }, () => time(() => schubertProduct(u, v))[1]))
-    const whole = median(Array.from({ length: reps }, () => time(() => execFileSync(process.execPath, [worker, ...args], { encoding: 'utf8', maxBuffer: 1 << 30 }))[1]))
-    let theirOut = ''
-    const theirs = median(Array.from({ length: reps }, () => {
-      const [o, t] = time(() => execFileSync(SCHUBMULT, args, { encoding: 'utf8', maxBuffer: 1 << 30 }))
-      theirOut = o
-      return t
-    }))
+    // Whole processes alternate (engine process, command, lrcalc) so that noise on this shared
+    // machine falls on all three alike.
+    const theirOut = execFileSync(SCHUBMULT, args, { encoding: 'utf8', maxBuffer: 1 << 30 })
     const expected = parseSchubmult(theirOut)
     const same = expected.size === first.size && [...expected].every(([k, c]) => first.get(k) === c)
+    const withCommand = expected.size <= CLI_MAX_TERMS
+    const tex = join(dir, 'product.tex')
+    if (withCommand) writeFileSync(tex, productClaimTex(u, v, theirOut))
+    const wholes: number[] = []
+    const commands: number[] = []
+    const lrcalcs: number[] = []
+    let verified = true
+    for (let i = 0; i < processReps; i++) {
+      wholes.push(time(() => execFileSync(process.execPath, [worker, ...args], { encoding: 'utf8', maxBuffer: 1 << 30 }))[1])
+      if (withCommand) {
+        const [out, t] = time(() => execFileSync(process.execPath, [cli, 'check', tex], { encoding: 'utf8', maxBuffer: 1 << 30, env: { ...process.env, NO_COLOR: '1' } }))
+        verified &&= /\b1 verified, 0 mismatch, 0 error, 0 unsupported\b/.test(out)
+        commands.push(t)
+      }
+      lrcalcs.push(time(() => execFileSync(SCHUBMULT, args, { encoding: 'utf8', maxBuffer: 1 << 30 }))[1])
+    }
+    const whole = median(wholes)
+    const theirs = median(lrcalcs)
+    const command = withCommand ? (verified ? fmt(median(commands)) : 'NOT VERIFIED') : '—'
+    const commandRatio = withCommand ? (median(commands) / theirs).toFixed(2) : '—'
     sumOurs += warm
     sumTheirs += theirs
     rows.push([
       `S_${u.size}`, `${u} · ${v}`, String(u.length() + v.length()), String(first.size), same ? 'yes' : 'NO',
-      fmt(cold), fmt(warm), fmt(whole), fmt(theirs), (warm / theirs).toFixed(2), (whole / theirs).toFixed(2),
+      fmt(cold), fmt(warm), fmt(whole), command, fmt(theirs), (warm / theirs).toFixed(2), (whole / theirs).toFixed(2), commandRatio,
     ])
   }
   rmSync(dir, { recursive: true, force: true })
   console.log('(a) Schubert structure constants S_u·S_v vs lrcalc schubmult (times in ms; lrcalc = whole process)')
-  table(['n', 'product', 'deg', 'terms', 'agree', 'ours cold', 'ours warm', 'ours process', 'lrcalc', 'warm/lrcalc', 'process/lrcalc'], rows)
+  table(['n', 'product', 'deg', 'terms', 'agree', 'ours cold', 'ours warm', 'ours process', 'scholium check', 'lrcalc', 'warm/lrcalc', 'process/lrcalc', 'check/lrcalc'], rows)
   console.log(`total warm in-process ${fmt(sumOurs)} ms vs lrcalc ${fmt(sumTheirs)} ms: ratio ${(sumOurs / sumTheirs).toFixed(2)}`)
   console.log(`(a bare \`node -e 0\` takes ${fmt(bareNode)} ms here, which bounds the process ratio on small inputs)`)
 

@@ -1,18 +1,7 @@
 /**
- * Entry point of the `scholium` command (bin/scholium.mjs loads it through tsx).
- * Sets the exit code instead of calling process.exit, so that a large JSON report piped
- * to another program is written out completely.
+ * Entry point of the `scholium` command from the checkout (bin/scholium.mjs loads it through tsx).
+ * The installed command runs the same runProcess from a bundle (scripts/build-cli.mjs).
  */
-import { EXIT, runCli } from './main'
+import { runProcess } from './process-main'
 
-try {
-  process.exitCode = await runCli(process.argv.slice(2), {
-    out: text => process.stdout.write(text),
-    err: text => process.stderr.write(text),
-    colour: process.stdout.isTTY === true && !process.env.NO_COLOR,
-  })
-}
-catch (error) {
-  process.stderr.write(`scholium: internal error: ${(error as Error)?.stack ?? String(error)}\n`)
-  process.exitCode = EXIT.internal
-}
+await runProcess(process.argv.slice(2))

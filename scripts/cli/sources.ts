@@ -9,8 +9,11 @@
  */
 import { lstat, readdir, readFile, realpath, stat } from 'node:fs/promises'
 import { basename, isAbsolute, join, relative, sep } from 'node:path'
-import { archiveKindOf, readUploadBundle, UploadRefusedError, type BundleFile } from '../../server/uploads'
-import { ArxivClient, ArxivError } from '../../server/arxiv/client'
+// The upload reader's own modules, not its index: the index also brings the multipart receiver
+// (busboy), which the command never uses. The arXiv client is loaded only for arxiv:<id>.
+import { readUploadBundle, type BundleFile } from '../../server/uploads/bundle'
+import { archiveKindOf } from '../../server/uploads/paths'
+import { UploadRefusedError } from '../../server/uploads/refusal'
 import { KNOWN_ARCHIVE_EXTENSIONS, UPLOAD_ARCHIVE_EXTENSIONS, UPLOAD_FILE_EXTENSIONS } from '../../shared/types/uploads'
 
 export interface SourceFiles {
@@ -106,6 +109,7 @@ function isAcceptedFile(name: string): boolean {
  * uploaded file. Files are named as inside the e-print.
  */
 async function readArxiv(source: string): Promise<SourceFiles> {
+  const { ArxivClient, ArxivError } = await import('../../server/arxiv/client')
   const client = new ArxivClient({
     baseUrl: process.env.NUXT_ARXIV_BASE_URL || 'https://arxiv.org',
     userAgent: 'scholium-cli/0.1 (checks worked examples in manuscripts)',

@@ -16,8 +16,6 @@ import { UPLOAD_LIMITS, type UploadLimits } from './limits'
 import { archiveKindOf, checkNoCollisions, commonTopFolder } from './paths'
 import { describeEntryName, refuse, UploadRefusedError } from './refusal'
 import { uploadBytes, uploadSize, type UploadedFile } from './source'
-import { readTar } from './tar'
-import { readZip } from './zip'
 
 /** One file read from an upload. */
 export interface BundleFile {
@@ -65,8 +63,10 @@ export async function readUploadBundle(uploads: readonly UploadedFile[], limits:
   if (single && kind) {
     collector = new BundleCollector(effective, true)
     if (uploadSize(single) === 0) throw new UploadRefusedError('archive-corrupt', 'The archive is empty (0 bytes).')
-    if (kind === 'zip') await readZip(single, collector)
-    else await readTar(single, kind === 'tar.gz', collector)
+    // Loaded on demand: the archive readers and their stream libraries are most of what a
+    // command-line check of a plain .tex file would otherwise parse at start-up.
+    if (kind === 'zip') await (await import('./zip')).readZip(single, collector)
+    else await (await import('./tar')).readTar(single, kind === 'tar.gz', collector)
     const top = commonTopFolder(collector.files.map((file) => file.path))
     if (top !== null) {
       for (const file of collector.files) file.path = file.path.slice(top.length + 1)

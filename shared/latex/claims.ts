@@ -14,13 +14,16 @@ import type { NotationObject, TagDirective } from './tags'
 import { MathSyntaxError, buildMathTree, renderNodes, spanOf, type MathNode, type Statement } from './math-tree'
 import { SideParser, bindableSymbol, readPartition, readPermutation, ParseFail, type ParseContext, type SideResult } from './expression'
 import { classifyClaim, containsObject, exprTypes } from './classify'
-import { isDefiningLeadIn, judgeStep, proseBefore, shortReason } from './precision'
+import { isDefiningLeadIn, judgeStep, proseBefore, shortReason, surroundingsOf, type Surroundings } from './precision'
 import type { MathRegion, SourceFile } from './regions'
 import { readStatements, type ReadStatement } from './statements'
 import type { BindingScopes } from './bindings'
 import { arrayTableGrid, readTable, type TableGrid } from './tables'
 import { isSpaceBinding, settingForClaim } from './notation/grassmannian'
 import { readCompositionBinding } from './notation/k-theory'
+
+/** A line that shows its content on some slides only: `\only<2>{`, `\uncover<3->{`, `\item<2->`, `\onslide<2>`. */
+const OVERLAY_LINE = /\\(only|uncover|onslide|visible|item|alt)\s*<[^>\n]{1,16}>/
 
 /** Claims and not-read entries of a run, numbered and bounded by the claim limit. */
 export class ClaimOutput {
@@ -34,8 +37,12 @@ export class ClaimOutput {
     private readonly warn: (code: WarningCode, message: string) => void,
   ) {}
 
-  /** Add a claim; its id is `file:line:n`, n counting the claims that start on that line. */
-  pushClaim(claim: Omit<Claim, 'id'>): void {
+  /**
+   * Add a claim; its id is `file:line:n`, n counting the claims that start on that line. Given the
+   * file, a claim on a beamer overlay line that repeats one of the 40 lines before is dropped.
+   */
+  pushClaim(claim: Omit<Claim, 'id'>, file?: SourceFile): void {
+    if (file && this.repeatsOnOverlay(claim, file)) return
     if (this.claims.length >= this.maxClaims) {
       if (!this.claimLimitWarned) this.warn('limit', `more than ${this.maxClaims} claims; later ones are dropped`)
       this.claimLimitWarned = true
@@ -45,6 +52,16 @@ export class ClaimOutput {
     const count = (this.claimsPerLine.get(lineKey) ?? 0) + 1
     this.claimsPerLine.set(lineKey, count)
     this.claims.push({ id: `${lineKey}:${count}`, ...claim })
+  }
+
+  /** `\only<2>{…}` showing again what `\only<1>{…}` showed: same source, question and bindings, on an overlay line. */
+  private repeatsOnOverlay(claim: Omit<Claim, 'id'>, file: SourceFile): boolean {
+    const text = file.original.slice(file.starts[claim.line - 1] ?? 0, file.starts[claim.line] ?? file.original.length)
+    if (!OVERLAY_LINE.test(text)) return false
+    const same = (other: Claim) => other.file === claim.file && other.source === claim.source && Math.abs(other.line - claim.line) < 40
+      && JSON.stringify(other.question) === JSON.stringify(claim.question) && JSON.stringify(other.context) === JSON.stringify(claim.context)
+    for (let j = this.claims.length - 1; j >= 0 && j >= this.claims.length - 50; j--) if (same(this.claims[j]!)) return true
+    return false
   }
 
   /** Add math the reader did not understand; beamer overlays repeat the same math, so it is listed once. */
@@ -81,6 +98,8 @@ interface StepPlace {
   regionLine: number
   /** The prose before inline math introduces a setting or definition ("Setting $x_2 = -y_2$"). */
   definingLeadIn: boolean
+  /** What the sentence and paragraph before the region say (letters made general, group or Schur topic). */
+  surroundings: Surroundings
 }
 
 /** A step whose place is not its sides' (a table row: the header gives the left side). */
@@ -129,7 +148,8 @@ export class ClaimReader {
     this.state.noteSetting?.(region, tree)
     const regionLine = positionAt(region.file.starts, region.pos).line
     const definingLeadIn = !region.display && isDefiningLeadIn(proseBefore(region.file.masked, region.pos))
-    this.readStatementList(readStatements(tree, region.env), { region, regionLine, definingLeadIn })
+    const surroundings = surroundingsOf(region.file.masked, region.pos)
+    this.readStatementList(readStatements(tree, region.env), { region, regionLine, definingLeadIn, surroundings })
   }
 
   /**
@@ -146,12 +166,13 @@ export class ClaimReader {
       return false
     }
     const region: MathRegion = { file: grid.file, tokens: [], pos: grid.pos, end: grid.end, display: grid.display }
+    const surroundings = surroundingsOf(grid.file.masked, grid.pos)
     // In document order: the table's claims, its unread rows, and the math of its other cells.
     const actions: { pos: number; run: () => void }[] = [
       ...reading.steps.map(step => ({
         pos: step.pos,
         run: () => {
-          const place: StepPlace = { region, label: undefined, regionLine: positionAt(grid.file.starts, step.pos).line, definingLeadIn: false }
+          const place: StepPlace = { region, label: undefined, regionLine: positionAt(grid.file.starts, step.pos).line, definingLeadIn: false, surroundings }
           this.emitStep({ place, lhs: step.lhs, rhs: step.rhs, relation: EQUALS(step.pos), continued: false, placement: step })
         },
       })),
@@ -277,7 +298,7 @@ export class ClaimReader {
 
   /** Turn one step into a claim, a not-read entry, or nothing; returns the claim's kind. */
   private emitStep(input: StepInput): ClaimKind | undefined {
-    const { place: { region, label, regionLine, definingLeadIn }, lhs, rhs, relation, continued, chainKind, placement } = input
+    const { place: { region, label, regionLine, definingLeadIn, surroundings }, lhs, rhs, relation, continued, chainKind, placement } = input
     const file = region.file
     const lhsSpan = spanOf(lhs)
     const rhsSpan = spanOf(rhs)
@@ -291,7 +312,7 @@ export class ClaimReader {
     const claimTag = tags.find(d => d.type === 'claim') as { type: 'claim'; kind?: ClaimKind } | undefined
     const skip = tags.some(d => d.type === 'skip')
     if (relation.rel !== '=' && !claimTag) return undefined
-    let judgement = judgeStep({ lhs: lhsRead, rhs: rhsRead, lhsNodes: lhs, rhsNodes: rhs, definingLeadIn, inObjectChain: !!chainKind })
+    let judgement = judgeStep({ lhs: lhsRead, rhs: rhsRead, lhsNodes: lhs, rhsNodes: rhs, definingLeadIn, inObjectChain: !!chainKind, surroundings })
     if (relation.rel !== '=') judgement = { type: 'unsupported', reason: `the relation ${relation.name} is not checked; only equalities are` }
     else if (judgement.type === 'claim' && lhsRead.ok && rhsRead.ok && settingForClaim(lhsRead.expr, rhsRead.expr, ctx.grassmannian) === 'mixed') {
       judgement = { type: 'notRead', reason: 'σ_λ next to polynomials or other objects (a presentation of the ring?) is not read' }
@@ -327,7 +348,7 @@ export class ClaimReader {
       this.output.pushClaim({
         ...base, kind, status: skip ? 'skipped' : 'ready', question: { type: 'equality', lhs: lhsRead.expr, rhs: rhsRead.expr, ...(setting ? { setting } : {}) },
         ...(skip ? { reason: 'a tag asks to skip this claim' } : {}),
-      })
+      }, file)
     } else {
       kind = claimTag?.kind ?? guessKind(lhsRead, rhsRead)
       const reason = judgement.type === 'unsupported' ? judgement.reason

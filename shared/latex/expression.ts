@@ -22,7 +22,15 @@ import { UNREAD_MACRO_PREFIX, unreadMacroReason } from './macros'
 import { readGrassmannianSpace } from './notation/grassmannian'
 import { formalGroupOperator, hasKTheoryMarker, keyFamilyAt, KTheoryReadError, parameterOf, readComposition, readSpecialisation } from './notation/k-theory'
 
-export class ParseFail extends Error {}
+/** Why a side could not be read. It is control flow, thrown and caught often, so it records no stack trace. */
+export class ParseFail extends Error {
+  constructor(message: string) {
+    const limit = Error.stackTraceLimit
+    Error.stackTraceLimit = 0
+    super(message)
+    Error.stackTraceLimit = limit
+  }
+}
 
 export interface ParseContext {
   bindings: ReadonlyMap<string, ContextValue>
@@ -341,6 +349,7 @@ export class SideParser {
         return { type: 'variable', name: 'x', index: alphabet.letters.indexOf(n.v) + 1 }
       }
       if (alphabet?.kind === 'secondZ' && n.v === 'z') return this.variable('y', 'z')
+      if (alphabet?.kind === 'indexed' && n.v === alphabet.letter && isCh(this.peek(), '_')) return this.variable('x', n.v)
       switch (n.v) {
         case 'x':
         case 'y':
@@ -367,6 +376,10 @@ export class SideParser {
           break
         case 'C':
           return this.capitalCoefficient()
+        case '[':
+          // [x_1^2]\mathfrak{S}_{312}: the coefficient of a monomial in what follows.
+          if (this.i === 1 && isCoefficientExtraction(this.nodes, this.ctx)) throw new ParseFail(COEFFICIENT_EXTRACTION)
+          break
         case 'K':
           return this.kostka()
         case '|':
@@ -376,6 +389,10 @@ export class SideParser {
             return this.determinant(this.nodes[this.i - 2]!)
           }
           return this.countBetweenBars(m => isCh(m, '|'))
+      }
+      // `ws_1`, `s_2 w`: a letter bound to a permutation, as a factor, multiplies in the group.
+      if (this.ctx.bindings.get(n.v)?.kind === 'permutation' && !isCh(this.peek(), '(')) {
+        throw new ParseFail(`${n.v} is a permutation here: a product in the symmetric group is not read`)
       }
       throw new ParseFail(`unknown symbol ${n.v}`)
     }
@@ -473,6 +490,7 @@ export class SideParser {
   }
 
   private schubertLike(type: 'schubert' | 'grothendieck'): Expr {
+    const recognisedBefore = this.recognised
     this.recognised = true
     const what = type === 'schubert' ? '\\mathfrak{S}' : '\\mathfrak{G}'
     const { sub, sup } = this.readScripts()
@@ -482,6 +500,10 @@ export class SideParser {
     const namesBeta = type === 'grothendieck' && !!sup && isBetaSuperscript(sup, this.ctx)
     const exponent = sup && !namesBeta ? readInteger(sup) : undefined
     if (sup && !namesBeta && exponent === undefined) throw new ParseFail(`superscript on ${what} is not supported`)
+    if (type === 'schubert' && sub && isSymmetricGroupIndex(sub, this.ctx)) {
+      this.recognised = recognisedBefore
+      throw new ParseFail(`\\mathfrak{S}_{${describeNodes(sub)}} with a number that is no permutation is the symmetric group, not a Schubert polynomial`)
+    }
     const perm = this.permutationFromScript(sub, what)
     const args = this.variableArguments()
     this.meaningful = true
@@ -540,8 +562,12 @@ export class SideParser {
   private stanley(): Expr {
     const { sub, sup } = this.readScripts()
     if (!sub || sup) throw new ParseFail('unknown symbol F')
-    this.recognised = true
+    // F is a flag member, a field or a function as often as a Stanley function: F_5 (no
+    // permutation of 1..1) names something else, so F is known only once its index reads.
+    const number = readInteger(sub)
+    if (number !== undefined && number !== 0 && !isStanleyIndex(sub, this.ctx)) throw new ParseFail(`F_{${describeNodes(sub)}} with a number that is no permutation names something else (a flag member, a term of a sequence)`)
     const perm = this.permutationFromScript(sub, 'F')
+    this.recognised = true
     this.variableArguments()
     this.meaningful = true
     return { type: 'stanley', perm }
@@ -580,15 +606,16 @@ export class SideParser {
   }
 
   private lengthOf(): Expr {
-    this.recognised = true
     const paren = this.parenthesised()
-    if (!paren) throw new ParseFail('\\ell without (w)')
+    // A lone ℓ is a letter (a number of parts, an index), not the length function.
+    if (!paren) throw new ParseFail('\\ell without (w) is a letter, not the length function')
+    this.recognised = true
     this.i += paren.length
     this.meaningful = true
     return { type: 'length', perm: readPermutation(paren.content, this.ctx, this.used) }
   }
 
-  private countedSet(nodes: MathNode[]): Expr {
+  private countedSet(nodes: MathNode[], betweenBars = false): Expr {
     // \mathrm{BPD}(w), \operatorname{Red}(2143), \text{PD}(w)
     let j = 0
     const head = nodes[j]
@@ -602,6 +629,8 @@ export class SideParser {
       while (nodes[j]?.k === 'ch' && /^[A-Za-z]$/.test((nodes[j] as { v: string }).v)) name += (nodes[j++] as { v: string }).v
     }
     const objects = name !== undefined ? COUNT_NAMES[name] : undefined
+    // |\lambda|, |w|, |a|: a size or an absolute value, not a set of objects.
+    if (!objects && betweenBars && nodes.length === 1 && symbolName(head)) throw new ParseFail(`|${symbolName(head)}| (a size or an absolute value) is not a set Scholium counts`)
     if (!objects) throw new ParseFail(`unknown set ${name ? name : describe(head)} to count (known: BPD, PD, Red)`)
     this.recognised = true
     const rest = nodes.slice(j)
@@ -635,7 +664,7 @@ export class SideParser {
     if (j >= this.nodes.length) throw new ParseFail('unclosed "|"')
     const inner = this.nodes.slice(this.i, j)
     this.i = j + (leftRight ? 2 : 1)
-    return this.countedSet(inner)
+    return this.countedSet(inner, true)
   }
 
   private coefficient(): Expr {
@@ -865,6 +894,46 @@ function isSpecialisationBar(nodes: MathNode[], at: number, ctx: ParseContext): 
 }
 
 const sizeOf = (parts: readonly number[]): number => parts.reduce((sum, part) => sum + part, 0)
+
+/** Why coefficient extraction `[x^a]F` gives no claim (the word "is not read" makes it not-read math). */
+const COEFFICIENT_EXTRACTION = 'coefficient extraction [x^a]F is not read'
+
+/**
+ * `[x_1^2]F`, `[x^a]F` at the start of a side: a bracketed monomial in x (or x^a with a letter
+ * exponent) followed by what it is the coefficient of. `s_1[x_-]` (an alphabet in brackets after
+ * an object) is not one: the bracket does not open the side.
+ */
+function isCoefficientExtraction(nodes: MathNode[], ctx: ParseContext): boolean {
+  const close = nodes.findIndex(m => isCh(m, ']'))
+  if (!isCh(nodes[0], '[') || close < 2 || close === nodes.length - 1) return false
+  const inner = nodes.slice(1, close)
+  if (inner.length === 3 && isCh(inner[0], 'x') && isCh(inner[1], '^')) return true
+  const monomial = SideParser.parseSide(inner, ctx)
+  const isMonomial = (e: Expr): boolean =>
+    e.type === 'variable' || (e.type === 'power' && isMonomial(e.base)) || (e.type === 'multiply' && e.factors.every(isMonomial))
+  return monomial.ok && isMonomial(monomial.expr)
+}
+
+/**
+ * `\mathfrak{S}_4`, `\mathfrak{S}_{10}`: a number of one or two digits that is no permutation in
+ * one-line notation names the symmetric group (as S_4 does); `\mathfrak{S}_{21}` is a Schubert polynomial.
+ */
+function isSymmetricGroupIndex(sub: MathNode[], ctx: ParseContext): boolean {
+  const ns = unwrap(sub)
+  return ns.length <= 2 && readInteger(ns) !== undefined && !isStanleyIndex(ns, ctx)
+}
+
+/** F_k with a plain number k: a Stanley function only when k is a permutation in one-line notation (F_{21}). */
+function isStanleyIndex(sub: MathNode[], ctx: ParseContext): boolean {
+  try {
+    readPermutation(sub, ctx, new Map())
+    return true
+  } catch (e) {
+    if (e instanceof ParseFail) return false
+    throw e
+  }
+}
+
 
 /** LaTeX-like text of nodes for messages, cut after 40 nodes with the count of what was cut. */
 function describeNodes(nodes: MathNode[], max = 40): string {
@@ -1211,6 +1280,8 @@ export function readPartition(nodes: MathNode[], ctx: ParseContext, used: Map<st
         for (let r = 0; r < times; r++) parts.push(part)
       } else {
         const v = readInteger(u)
+        const letter = v === undefined ? freeLetter(u, ctx) : undefined
+        if (letter) throw new ParseFail(`${letter} is not bound (in the index ${describeNodes(nodes)}): a general statement`)
         if (v === undefined) throw new ParseFail(`"${describeNodes(it)}" is not a part of a partition`)
         parts.push(v)
       }
@@ -1291,10 +1362,16 @@ export function mentionsKnownObject(nodes: MathNode[], ctx: ParseContext): boole
       continue
     }
     if (n.k === 'cs') {
-      if (ctx.notation.has(n.v) || n.v === 'ell' || n.v === '#' || n.v === 'partial' || n.v === 'det') return true
+      if (ctx.notation.has(n.v) || n.v === 'partial' || n.v === 'det') return true
+      // ℓ is the length function only before its argument (a lone ℓ or λ_ℓ is a letter); \# counts
+      // only a set Scholium knows (not \#\{ i : … \}).
+      if (n.v === 'ell' && (isCh(nodes[j + 1], '(') || isCs(nodes[j + 1], 'left'))) return true
+      if (n.v === '#' && countsKnownSet(nodes, j + 1)) return true
       if (n.v === 'mathfrak') {
         const arg = nodes[j + 1]
         const letter = arg ? plainText(childrenOf(arg)).trim() : ''
+        const sub = isCh(nodes[j + 2], '_') ? nodes[j + 3] : undefined
+        if (letter === 'S' && sub && isSymmetricGroupIndex(childrenOf(sub), ctx)) continue
         if (letter === 'S' || letter === 'G') return true
       }
       continue
@@ -1302,8 +1379,21 @@ export function mentionsKnownObject(nodes: MathNode[], ctx: ParseContext): boole
     if (OBJECT_LETTERS.has(n.v) && isCh(nodes[j + 1], '_')) {
       const sub = nodes[j + 2]
       const first = sub ? unwrap(childrenOf(sub))[0] : undefined
+      // c_1 without a superscript is a letter (a part of a code), not c^ν_{λμ}; F_5 is a flag member.
+      if (n.v === 'c' && !isCh(nodes[j + 3], '^')) continue
+      if (n.v === 'F' && !(sub && isStanleyIndex(childrenOf(sub), ctx))) continue
       if (isDigit(first) || isCh(first, '(')) return true
     }
   }
   return false
+}
+
+/** True if the nodes from `j` name a set Scholium counts: `\mathrm{BPD}(w)`, `\Red(w)`, `PD(w)`. */
+function countsKnownSet(nodes: MathNode[], j: number): boolean {
+  const head = nodes[j]
+  if (!head) return false
+  if (head.k === 'cs' && NAME_COMMANDS.has(head.v) && nodes[j + 1]) return plainText(childrenOf(nodes[j + 1]!)).trim() in COUNT_NAMES
+  let name = ''
+  for (let k = j; nodes[k]?.k === 'ch' && /^[A-Za-z]$/.test((nodes[k] as { v: string }).v); k++) name += (nodes[k] as { v: string }).v
+  return name in COUNT_NAMES
 }

@@ -8,9 +8,13 @@
  * - `\let\a\b` copies the meaning \b has now: a user macro's definition, or else the command
  *   itself as TeX knows it (a "primitive" copy that is never expanded again), so
  *   `\let\oldsum\sum \renewcommand{\sum}{\oldsum\limits}` is not recursive.
- * - A macro whose argument specification the reader does not follow (xparse specs other than
- *   m, o and O{…}) is kept as "unread": its uses become the token `\unread@name`, which no notation
- *   reader knows, so the math around it is listed as not read instead of being guessed.
+ * - xparse argument types m, o, O, s, t, r, R, d, D, e, E, v and (for environments) b are read
+ *   exactly; \IfBooleanTF and \IfNoValueTF (with their T and F forms) are decided when their
+ *   argument is one of these. A macro whose specification holds anything else (argument
+ *   processors >{…}, g, l, u) is kept as "unread": its uses become the token `\unread@name`, which
+ *   no notation reader knows, so the math around it is listed as not read instead of being
+ *   guessed. A use the reader cannot expand exactly (an r argument whose delimiter is missing, an
+ *   \IfBooleanTF on something else) is left unread the same way.
  * - User environments (\newenvironment) expand at \begin and \end; `onUserEnvironment` tells a
  *   listener where they start and end, since their own \begin/\end tokens are consumed.
  */
@@ -19,8 +23,23 @@ import { Tokenizer, renderTokens, splitRuns, type Token } from './tokens'
 /** One item of a \def parameter text: a parameter number or a literal delimiter token. */
 type PatternItem = { param: number } | { literal: Token }
 
-/** One undelimited argument: mandatory, or optional in brackets with a default (none: xparse's -NoValue-). */
-export type ArgumentSpec = { kind: 'mandatory' } | { kind: 'optional'; default?: Token[] }
+/**
+ * One argument of a macro. `optional` is o/O (in brackets) or d/D (with `open`/`close`), with a
+ * default (none: xparse's -NoValue-); `required` is r/R; `boolean` is s (token `*`) or t<token>;
+ * `embellishments` is e/E, one argument per token; `verbatim` is v; `body` is an environment's b.
+ * `noSpace` (xparse's `!`) means spaces before an optional argument end the call.
+ */
+export type ArgumentSpec =
+  | { kind: 'mandatory' }
+  | { kind: 'optional'; default?: Token[]; open?: string; close?: string; noSpace?: boolean }
+  | { kind: 'required'; open: string; close: string }
+  | { kind: 'boolean'; token: string; noSpace?: boolean }
+  | { kind: 'embellishments'; tokens: string[]; defaults: (Token[] | undefined)[] }
+  | { kind: 'verbatim' }
+  | { kind: 'body' }
+
+/** How many parameters (#1 …) an argument fills: one, or one per embellishment token. */
+const paramCount = (spec: ArgumentSpec) => (spec.kind === 'embellishments' ? spec.tokens.length : 1)
 
 export interface MacroDefinition {
   name: string
@@ -123,6 +142,22 @@ const SPACE_KINDS = new Set(['sp', 'par'])
 /** What xparse hands a macro for an absent `o` argument (-NoValue-): an unread token, so such math is not read. */
 const NO_VALUE_NAME = 'NoValue-'
 const NO_VALUE: Token[] = [{ k: 'cs', v: 'unread@' + NO_VALUE_NAME, pos: 0, end: 0, depth: 0 }]
+/** What an s or t argument hands the macro, as xparse does: \BooleanTrue or \BooleanFalse. */
+const BOOLEAN_TRUE = 'BooleanTrue'
+const BOOLEAN_FALSE = 'BooleanFalse'
+/** A verbatim (v) argument: its contents are code, never math, so math it lands in is not read. */
+const VERBATIM_NAME = 'verbatim-argument'
+/** xparse's tests on arguments, decided when the argument is a value the reader made (boolean, -NoValue-). */
+const CONDITIONALS: Record<string, { test: 'boolean' | 'noValue' | 'value'; branches: 'TF' | 'T' | 'F' }> = {
+  IfBooleanTF: { test: 'boolean', branches: 'TF' }, IfBooleanT: { test: 'boolean', branches: 'T' }, IfBooleanF: { test: 'boolean', branches: 'F' },
+  IfNoValueTF: { test: 'noValue', branches: 'TF' }, IfNoValueT: { test: 'noValue', branches: 'T' }, IfNoValueF: { test: 'noValue', branches: 'F' },
+  IfValueTF: { test: 'value', branches: 'TF' }, IfValueT: { test: 'value', branches: 'T' }, IfValueF: { test: 'value', branches: 'F' },
+}
+/** The key a delimiter or token is compared by: its character, or `\name` for a control sequence. */
+const tokenKey = (t: Token) => (t.k === 'cs' ? '\\' + t.v : t.v)
+
+/** A use that cannot be expanded exactly: the macro's uses are then left unread. */
+class InexactUse extends Error {}
 
 /**
  * A token stream with TeX-like expansion of user macros.
@@ -204,6 +239,10 @@ export class Expander {
         return t
       }
       const def = this.table.macros.get(t.v)
+      if (!def && CONDITIONALS[t.v] && !this.protectedNames.has(t.v)) {
+        if (this.expandConditional(t, CONDITIONALS[t.v]!)) continue
+        return t
+      }
       if (!def || this.protectedNames.has(t.v)) return t
       if (def.primitive) {
         // The meaning \let copied: handed out as it is, never looked up again.
@@ -245,7 +284,9 @@ export class Expander {
     }
     this.onUserEnvironment?.(env.name, t.v === 'begin' ? 'begin' : 'end', t.pos)
     const owner: Token = { ...t, v: t.v === 'begin' ? `begin{${env.name}}` : `end{${env.name}}` }
-    if (t.v === 'begin') this.expand(owner, env.begin)
+    // An environment with a body argument (b) is expanded whole at \begin: its code, then its end code.
+    if (t.v === 'begin' && env.begin.args?.some(a => a.kind === 'body')) this.expand(owner, { ...env.begin, body: [...env.begin.body, ...env.end] })
+    else if (t.v === 'begin') this.expand(owner, env.begin)
     else this.expand(owner, { ...env.begin, params: 0, args: undefined, pattern: undefined, body: env.end })
     return true
   }
@@ -267,22 +308,44 @@ export class Expander {
       for (const a of args) noteEnd(a)
     } else {
       const specs: ArgumentSpec[] = def.args ?? Array.from({ length: def.params }, () => ({ kind: 'mandatory' }) as const)
-      for (const spec of specs) {
-        if (spec.kind === 'mandatory') {
-          const a = this.readArgument(t)
-          noteEnd(a)
-          args.push(a)
-          continue
+      // The default comes from the definition: stamp it with the use site's position.
+      const stamp = (fallback: Token[] | undefined) => (fallback ?? NO_VALUE).map(d => ({ ...d, pos: t.pos, end: t.end, depth: t.depth + 1 }))
+      const marker = (v: string): Token[] => [{ k: 'cs', v, pos: t.pos, end: t.end, depth: t.depth + 1 }]
+      try {
+        for (const spec of specs) {
+          if (spec.kind === 'mandatory') {
+            const a = this.readArgument(t)
+            noteEnd(a)
+            args.push(a)
+          } else if (spec.kind === 'optional' || spec.kind === 'required') {
+            const open = spec.kind === 'optional' ? spec.open ?? '[' : spec.open
+            const close = spec.kind === 'optional' ? spec.close ?? ']' : spec.close
+            const got = open === '[' && close === ']' && !(spec.kind === 'optional' && spec.noSpace) ? this.readOptional(t) : this.readDelimited(t, open, close, spec.kind === 'optional' && !!spec.noSpace)
+            if (got) {
+              noteEnd(got)
+              args.push(got)
+            } else if (spec.kind === 'required') throw new InexactUse()
+            else args.push(stamp(spec.default))
+          } else if (spec.kind === 'boolean') {
+            args.push(marker(this.readBooleanToken(spec.token, !!spec.noSpace) ? BOOLEAN_TRUE : BOOLEAN_FALSE))
+          } else if (spec.kind === 'embellishments') {
+            const found = this.readEmbellishments(t, spec.tokens)
+            spec.tokens.forEach((token, k) => {
+              const a = found.get(token)
+              if (a) noteEnd(a)
+              args.push(a ?? stamp(spec.defaults[k]))
+            })
+          } else if (spec.kind === 'verbatim') {
+            this.readVerbatim(t)
+            args.push(marker(UNREAD_MACRO_PREFIX + VERBATIM_NAME))
+          } else {
+            args.push(this.readEnvironmentBody(t, def.name))
+          }
         }
-        const opt = this.readOptional(t)
-        if (opt) {
-          noteEnd(opt)
-          args.push(opt)
-        } else {
-          // The default comes from the definition: stamp it with the use site's position.
-          const fallback = spec.default ?? NO_VALUE
-          args.push(fallback.map(d => ({ ...d, pos: t.pos, end: t.end, depth: t.depth + 1 })))
-        }
+      } catch (e) {
+        if (!(e instanceof InexactUse)) throw e
+        this.pushBack([{ k: 'cs', v: UNREAD_MACRO_PREFIX + def.name, pos: t.pos, end: t.end, depth: t.depth }])
+        return
       }
     }
     const last = this.lastRaw
@@ -341,6 +404,153 @@ export class Expander {
         )
       }
     }
+  }
+
+  /**
+   * A delimited argument `<open>…<close>` (xparse d, D, r, R), or undefined when the next token is
+   * not `open` (put back). Nested pairs of the delimiters and braces are kept whole.
+   */
+  readDelimited(owner: Token, open: string, close: string, noSpace: boolean): Token[] | undefined {
+    const skipped: Token[] = []
+    let t = this.nextRawChar()
+    while (!noSpace && t && SPACE_KINDS.has(t.k)) {
+      skipped.push(t)
+      t = this.nextRawChar()
+    }
+    if (!t || tokenKey(t) !== open) {
+      if (t) this.pushBack([t])
+      this.lastRaw = undefined
+      return undefined
+    }
+    const out: Token[] = []
+    let braces = 0
+    let nested = 0
+    for (;;) {
+      const u = this.nextRawChar()
+      if (!u) throw new ExpansionError(`the argument of \\${owner.v} opened by "${open}" is never closed by "${close}"`, t.pos)
+      const key = tokenKey(u)
+      if (u.k === 'ch' && u.v === '{') braces++
+      else if (u.k === 'ch' && u.v === '}') braces--
+      else if (braces === 0 && key === close && nested === 0) return out
+      else if (braces === 0 && key === close) nested--
+      else if (braces === 0 && key === open && open !== close) nested++
+      out.push(u)
+      if (out.length > this.limits.maxArgumentTokens) {
+        throw new ExpansionError(`the argument of \\${owner.v} runs past ${this.limits.maxArgumentTokens} tokens`, t.pos)
+      }
+    }
+  }
+
+  /** An s or t argument: true if the next token (after spaces, unless `noSpace`) is `token`, which is consumed. */
+  private readBooleanToken(token: string, noSpace: boolean): boolean {
+    const skipped: Token[] = []
+    let t = this.nextRawChar()
+    while (!noSpace && t && SPACE_KINDS.has(t.k)) {
+      skipped.push(t)
+      t = this.nextRawChar()
+    }
+    if (t && tokenKey(t) === token) return true
+    if (t) this.pushBack([t])
+    this.lastRaw = undefined
+    return false
+  }
+
+  /** e{^_}: each token of `tokens`, at most once and in any order, followed by its argument. */
+  private readEmbellishments(owner: Token, tokens: string[]): Map<string, Token[]> {
+    const found = new Map<string, Token[]>()
+    for (;;) {
+      let t = this.nextRawChar()
+      while (t && SPACE_KINDS.has(t.k)) t = this.nextRawChar()
+      if (!t || !tokens.includes(tokenKey(t)) || found.has(tokenKey(t))) {
+        if (t) this.pushBack([t])
+        this.lastRaw = undefined
+        return found
+      }
+      found.set(tokenKey(t), this.readArgument(owner))
+    }
+  }
+
+  /** A v argument: between braces or two equal characters; consumed whole, since it is code and never math. */
+  private readVerbatim(owner: Token): void {
+    let t = this.nextRawChar()
+    while (t && SPACE_KINDS.has(t.k)) t = this.nextRawChar()
+    if (!t) throw new ExpansionError(`\\${owner.v} is missing its verbatim argument at the end of the input`, owner.pos)
+    if (t.k === 'ch' && t.v === '{') {
+      this.readGroupBody(t, owner)
+      return
+    }
+    const delimiter = tokenKey(t)
+    for (let n = 0; ; n++) {
+      const u = this.nextRawChar()
+      if (!u || n > this.limits.maxArgumentTokens) throw new ExpansionError(`the verbatim argument of \\${owner.v} is never closed by "${delimiter}"`, t.pos)
+      if (tokenKey(u) === delimiter) return
+    }
+  }
+
+  /** A b argument: the tokens up to the matching \end{name} (nested \begin{name} kept), which is consumed. */
+  private readEnvironmentBody(owner: Token, name: string): Token[] {
+    const out: Token[] = []
+    let depth = 0
+    for (;;) {
+      const t = this.nextRaw()
+      if (!t) throw new ExpansionError(`\\begin{${name}} is never ended by \\end{${name}}`, owner.pos)
+      if (t.k === 'cs' && (t.v === 'begin' || t.v === 'end')) {
+        const nameToks = this.readEnvironmentName()
+        const here = nameToks.map(u => u.v).join('')
+        if (here === `{${name}}`) {
+          if (t.v === 'begin') depth++
+          else if (depth-- === 0) {
+            this.onUserEnvironment?.(name, 'end', t.pos)
+            return out
+          }
+        }
+        out.push(t, ...nameToks)
+      } else out.push(t)
+      if (out.length > this.limits.maxArgumentTokens) throw new ExpansionError(`the body of \\begin{${name}} runs past ${this.limits.maxArgumentTokens} tokens`, owner.pos)
+    }
+  }
+
+  /** After \begin or \end: the tokens of `{name}` (or whatever single token follows). */
+  private readEnvironmentName(): Token[] {
+    const first = this.nextRaw()
+    if (!first) return []
+    if (!(first.k === 'ch' && first.v === '{')) return [first]
+    const out: Token[] = [first]
+    for (let i = 0; i < 40; i++) {
+      const u = this.nextRaw()
+      if (!u) break
+      out.push(u)
+      if (u.k === 'ch' && (u.v === '}' || u.v === '{')) break
+    }
+    return out
+  }
+
+  /**
+   * \IfBooleanTF{#1}{…}{…} and the other xparse tests: decided when the tested argument is what
+   * the reader handed the macro (\BooleanTrue, \BooleanFalse, -NoValue-, or any value for
+   * \IfNoValueTF); the chosen branch is pushed back. False (nothing consumed) otherwise.
+   */
+  private expandConditional(t: Token, conditional: { test: 'boolean' | 'noValue' | 'value'; branches: 'TF' | 'T' | 'F' }): boolean {
+    const next = this.peekRaw()
+    if (!next || next.k === 'sp') return false
+    const tested = this.readArgument(t)
+    const only = tested.length === 1 ? tested[0]! : undefined
+    let result: boolean
+    if (conditional.test === 'boolean') {
+      if (!only || only.k !== 'cs' || (only.v !== BOOLEAN_TRUE && only.v !== BOOLEAN_FALSE)) {
+        // Not a boolean the reader made: leave the test unread (its math is then not read).
+        this.pushBack([{ k: 'cs', v: UNREAD_MACRO_PREFIX + t.v, pos: t.pos, end: t.end, depth: t.depth }])
+        return true
+      }
+      result = only.v === BOOLEAN_TRUE
+    } else {
+      const noValue = !!only && only.k === 'cs' && only.v === UNREAD_MACRO_PREFIX + NO_VALUE_NAME
+      result = conditional.test === 'noValue' ? noValue : !noValue
+    }
+    const whenTrue = conditional.branches === 'F' ? [] : this.readArgument(t)
+    const whenFalse = conditional.branches === 'T' ? [] : this.readArgument(t)
+    this.pushBack(result ? whenTrue : whenFalse)
+    return true
   }
 
   /** An optional [argument], or undefined (the peeked token is put back). */
@@ -590,7 +800,7 @@ export function readDefinition(
     if (name === 'ProvideDocumentCommand' && x.macros.has(target.v)) return undefined
     const parsed = parseArgumentSpec(spec)
     if ('unread' in parsed) return macro({ name: target.v, params: 0, body: [], unread: parsed.unread, file, offset: cmd.pos })
-    return macro({ name: target.v, params: parsed.args.length, args: parsed.args, body, file, offset: cmd.pos })
+    return macro({ name: target.v, params: countParams(parsed.args), args: parsed.args, body, file, offset: cmd.pos })
   }
   if (name === 'newenvironment' || name === 'renewenvironment') {
     star()
@@ -606,11 +816,11 @@ export function readDefinition(
     const spec = readBody()
     const begin = toReplacementText(readBody())
     const end = toReplacementText(readBody())
-    const parsed = parseArgumentSpec(spec)
+    const parsed = parseArgumentSpec(spec, { environment: true })
     // An environment whose arguments are not followed still ends where it ends: its code is dropped.
     const beginDef: MacroDefinition = 'unread' in parsed
       ? { name: envName, params: 0, body: [], file, offset: cmd.pos }
-      : { name: envName, params: parsed.args.length, args: parsed.args, body: begin, file, offset: cmd.pos }
+      : { name: envName, params: countParams(parsed.args), args: parsed.args, body: begin, file, offset: cmd.pos }
     return { type: 'environment', environment: { name: envName, begin: beginDef, end: 'unread' in parsed ? [] : end, file, offset: cmd.pos } }
   }
   if (name === 'newtheorem' || name === 'spnewtheorem') {
@@ -671,40 +881,103 @@ function isSingleSymbol(toks: Token[]): boolean {
   return depth === 0
 }
 
+const countParams = (args: ArgumentSpec[]) => args.reduce((n, a) => n + paramCount(a), 0)
+
 /**
- * An xparse argument specification: `m`, `o`, `O{default}`, each optionally prefixed by `+`
- * (long arguments read the same here). Anything else (s, t, r, d, e, v, b, >{…}, !) is not
- * followed, and the macro is then unread: never guessed.
- * Example: `parseArgumentSpec(tokenize('m O{1}'))` gives a mandatory and an optional argument.
+ * An xparse argument specification, each item optionally prefixed by `+` (long arguments read
+ * the same here) or `!` (no spaces before an optional argument): m, o, O{default}, s, t<token>,
+ * r<open><close>, R<open><close>{default}, d<open><close>, D<open><close>{default}, e{tokens},
+ * E{tokens}{defaults}, v, and b (the body, last, for environments only). Anything else (>{…}
+ * processors, g, G, l, u) is not followed, and the macro is then unread: never guessed.
+ * Example: `parseArgumentSpec(tokenize('s m O{1}'))` gives a star, a mandatory and an optional argument.
  */
-export function parseArgumentSpec(spec: Token[]): { args: ArgumentSpec[] } | { unread: string } {
+export function parseArgumentSpec(spec: Token[], options: { environment?: boolean } = {}): { args: ArgumentSpec[] } | { unread: string } {
   const toks = splitRuns(spec).filter(t => t.k !== 'sp')
   const args: ArgumentSpec[] = []
-  for (let i = 0; i < toks.length; i++) {
-    const t = toks[i]!
-    if (t.k === 'ch' && t.v === '+') continue
-    if (t.k === 'ch' && t.v === 'm') args.push({ kind: 'mandatory' })
-    else if (t.k === 'ch' && t.v === 'o') args.push({ kind: 'optional' })
-    else if (t.k === 'ch' && t.v === 'O' && toks[i + 1]?.k === 'ch' && toks[i + 1]!.v === '{') {
-      const inner: Token[] = []
-      let depth = 0
-      let j = i + 1
-      for (; j < toks.length; j++) {
-        const u = toks[j]!
-        if (u.k === 'ch' && u.v === '{') {
-          if (depth++ === 0) continue
-        } else if (u.k === 'ch' && u.v === '}') {
-          if (--depth === 0) break
+  let i = 0
+  /** A braced group at `i` (its contents, and `i` moved past it), or undefined. */
+  const braced = (): Token[] | undefined => {
+    if (!(toks[i]?.k === 'ch' && toks[i]!.v === '{')) return undefined
+    const inner: Token[] = []
+    let depth = 0
+    for (; i < toks.length; i++) {
+      const u = toks[i]!
+      if (u.k === 'ch' && u.v === '{') {
+        if (depth++ === 0) continue
+      } else if (u.k === 'ch' && u.v === '}') {
+        if (--depth === 0) {
+          i++
+          return inner
         }
-        inner.push(u)
       }
-      if (depth !== 0) return { unread: 'the argument specification has unbalanced braces' }
-      args.push({ kind: 'optional', default: inner })
-      i = j
-    } else {
-      return { unread: `argument type "${t.k === 'cs' ? '\\' + t.v : t.v}" is not followed` }
+      inner.push(u)
     }
-    if (args.length > 9) return { unread: 'more than nine arguments' }
+    return undefined
+  }
+  /** One delimiter or token at `i`: a character or a control sequence (never a brace). */
+  const single = (): string | undefined => {
+    const u = toks[i]
+    if (!u || (u.k === 'ch' && (u.v === '{' || u.v === '}')) || u.k === 'param') return undefined
+    i++
+    return tokenKey(u)
+  }
+  let noSpace = false
+  while (i < toks.length) {
+    const t = toks[i++]!
+    const type = t.k === 'ch' ? t.v : '\\' + t.v
+    if (type === '+') continue
+    if (type === '!') {
+      noSpace = true
+      continue
+    }
+    let arg: ArgumentSpec | undefined
+    if (type === 'm') arg = { kind: 'mandatory' }
+    else if (type === 'o') arg = { kind: 'optional', ...(noSpace ? { noSpace } : {}) }
+    else if (type === 'O') {
+      const def = braced()
+      if (def) arg = { kind: 'optional', default: def, ...(noSpace ? { noSpace } : {}) }
+    } else if (type === 's') arg = { kind: 'boolean', token: '*', ...(noSpace ? { noSpace } : {}) }
+    else if (type === 't') {
+      const token = single()
+      if (token) arg = { kind: 'boolean', token, ...(noSpace ? { noSpace } : {}) }
+    } else if (type === 'r' || type === 'R' || type === 'd' || type === 'D') {
+      const open = single()
+      const close = single()
+      const def = type === 'R' || type === 'D' ? braced() : undefined
+      if (open && close && (def || type === 'r' || type === 'd')) {
+        // R's default stands in only after an error in LaTeX; a use without the delimiter is left unread.
+        arg = type === 'r' || type === 'R' ? { kind: 'required', open, close }
+          : { kind: 'optional', open, close, ...(def ? { default: def } : {}), ...(noSpace ? { noSpace } : {}) }
+      }
+    } else if (type === 'e' || type === 'E') {
+      const tokens = braced()
+      const defaults = type === 'E' ? braced() : []
+      if (tokens && defaults) {
+        const keys = tokens.filter(u => u.k !== 'sp').map(tokenKey)
+        // E's defaults: one braced group (or one token) per embellishment, in order.
+        const values: (Token[] | undefined)[] = []
+        for (let k = 0; k < defaults.length; k++) {
+          const u = defaults[k]!
+          if (u.k === 'ch' && u.v === '{') {
+            const group: Token[] = []
+            let depth = 1
+            for (k++; k < defaults.length; k++) {
+              const w = defaults[k]!
+              if (w.k === 'ch' && w.v === '{') depth++
+              else if (w.k === 'ch' && w.v === '}' && --depth === 0) break
+              group.push(w)
+            }
+            values.push(group)
+          } else values.push([u])
+        }
+        arg = { kind: 'embellishments', tokens: keys, defaults: keys.map((_, k) => values[k]) }
+      }
+    } else if (type === 'v') arg = { kind: 'verbatim' }
+    else if (type === 'b' && options.environment && i === toks.length) arg = { kind: 'body' }
+    if (!arg) return { unread: `argument type "${type}" is not followed` }
+    noSpace = false
+    args.push(arg)
+    if (countParams(args) > 9) return { unread: 'more than nine arguments' }
   }
   return { args }
 }

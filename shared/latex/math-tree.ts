@@ -106,7 +106,71 @@ export function buildMathTree(tokens: Token[]): MathNode[] {
       s.open.pos,
     )
   }
-  return dropSpacingArgs(root)
+  return dropDecorations(dropSpacingArgs(root))
+}
+
+/** Beamer and colour commands whose last argument is math that stays: `\alert<2>{s_{21}}` → `{s_{21}}`. */
+const DECORATIONS: Record<string, { overlay: boolean; dropped: number; kept: boolean }> = {
+  alert: { overlay: true, dropped: 0, kept: true },
+  only: { overlay: true, dropped: 0, kept: true },
+  uncover: { overlay: true, dropped: 0, kept: true },
+  visible: { overlay: true, dropped: 0, kept: true },
+  onslide: { overlay: true, dropped: 0, kept: true },
+  structure: { overlay: true, dropped: 0, kept: true },
+  textcolor: { overlay: true, dropped: 1, kept: true },
+  colorbox: { overlay: false, dropped: 1, kept: true },
+  color: { overlay: true, dropped: 1, kept: false },
+  pause: { overlay: false, dropped: 0, kept: false },
+}
+/** Characters of an overlay specification: `<2>`, `<2->`, `<1,3>`, `<alert@2>`, `<+->`, `<.->`. */
+const OVERLAY_CHARS = /^[0-9a-z@+\-,|.*]$/
+
+/** The index after an overlay specification starting at `i` (`<2->`), or `i` when there is none. */
+function skipOverlay(nodes: MathNode[], i: number): number {
+  if (!isChar(nodes[i], '<')) return i
+  for (let j = i + 1; j < nodes.length && j <= i + 16; j++) {
+    const n = nodes[j]!
+    if (isChar(n, '>')) return j > i + 1 ? j + 1 : i
+    if (n.k !== 'ch' || !OVERLAY_CHARS.test(n.v)) return i
+  }
+  return i
+}
+
+/**
+ * Beamer overlays and colours inside math: the decoration goes, the content stays. `\alert{s_{11}}`
+ * and `\only<2>{+ s_{11}}` keep their argument as a group, `\textcolor{red}{2}` keeps `{2}`,
+ * `\color{red}`, `\pause` and `\onslide<2->` without an argument go. A command without the
+ * argument it needs is left as it is (and the math stays unread).
+ */
+function dropDecorations(nodes: MathNode[]): MathNode[] {
+  const out: MathNode[] = []
+  for (let i = 0; i < nodes.length; i++) {
+    const n = nodes[i]!
+    const command = n.k === 'cs' ? n.v : ''
+    const decoration = command ? DECORATIONS[command] : undefined
+    if (decoration) {
+      let j = decoration.overlay ? skipOverlay(nodes, i + 1) : i + 1
+      if (isChar(nodes[j], '[') && command.endsWith('color')) {
+        while (j < nodes.length && !isChar(nodes[j], ']')) j++
+        j++
+      }
+      let ok = true
+      for (let d = 0; d < decoration.dropped; d++, j++) if (nodes[j]?.k !== 'group') ok = false
+      const content = nodes[j]
+      if (ok && decoration.kept && content?.k === 'group') {
+        out.push({ ...content, pos: n.pos, children: dropDecorations(content.children) })
+        i = j
+        continue
+      }
+      if (ok && (!decoration.kept || command === 'onslide')) {
+        i = j - 1
+        continue
+      }
+    }
+    if (n.k === 'group' || n.k === 'env') out.push({ ...n, children: dropDecorations(n.children) })
+    else out.push(n)
+  }
+  return out
 }
 
 function dropSpacingArgs(nodes: MathNode[]): MathNode[] {

@@ -7,7 +7,7 @@
 import type { Expr } from '../types/claims'
 import type { SideResult } from './expression'
 import { containsObject, exprTypes } from './classify'
-import { isChar, type MathNode } from './math-tree'
+import { isChar, renderNodes, type MathNode } from './math-tree'
 import { isUnreadMacroReason } from './macros'
 
 /** What to do with one `lhs = rhs` step before any claim is made. */
@@ -72,9 +72,11 @@ function isSymmetricEqualToNumber(lhs: Expr, rhs: Expr): boolean {
 export function isLoneSymbol(nodes: MathNode[]): boolean {
   const head = nodes[0]
   if (!head) return false
-  const letter = (head.k === 'ch' && /^[a-zA-Z]$/.test(head.v)) || (head.k === 'cs' && GREEK.test(head.v))
+  const letter = (head.k === 'ch' && /^[a-zA-Z]$/.test(head.v)) || (head.k === 'cs' && (GREEK.test(head.v) || head.v === 'ell'))
   if (!letter) return false
-  for (let i = 1; i < nodes.length; i += 2) {
+  // A prime right after the letter (λ'_j, w') belongs to its name.
+  const from = isChar(nodes[1], "'") ? 2 : 1
+  for (let i = from; i < nodes.length; i += 2) {
     if (!(isChar(nodes[i], '_') || isChar(nodes[i], '^')) || !nodes[i + 1]) return false
   }
   return true
@@ -82,26 +84,52 @@ export function isLoneSymbol(nodes: MathNode[]): boolean {
 
 const GREEK = /^(alpha|beta|gamma|delta|epsilon|varepsilon|zeta|eta|theta|iota|kappa|lambda|mu|nu|xi|pi|rho|sigma|tau|upsilon|phi|varphi|chi|psi|omega|Gamma|Delta|Theta|Lambda|Xi|Pi|Sigma|Phi|Psi|Omega)$/
 
-/** A product of s_k with one-part indices and no sum: a word in simple transpositions (`s_2s_1`). */
+/**
+ * A product of s_k with one-part indices and no sum: a word in simple transpositions (`s_2s_1`),
+ * with powers of letters and of bracketed words (`(s_1s_2)^3`).
+ */
 function isTranspositionWord(e: Expr): boolean {
-  const factors = e.type === 'multiply' ? e.factors : [e]
-  return factors.every(f => {
-    const base = f.type === 'power' ? f.base : f
-    return (base.type === 'symmetric' && base.family === 'schur' && base.index.length === 1)
-      || (base.type === 'schubertClass' && base.partition.length === 1)
-  })
+  if (e.type === 'multiply') return e.factors.every(isTranspositionWord)
+  if (e.type === 'power') return isTranspositionWord(e.base)
+  return (e.type === 'symmetric' && e.family === 'schur' && e.index.length === 1 && e.variableCount === undefined && !e.skew)
+    || (e.type === 'schubertClass' && e.partition.length === 1)
 }
 
-const factorCount = (e: Expr) => (e.type === 'multiply' ? e.factors.length : e.type === 'power' ? e.exponent : 1)
+/** Letters in a word: `(s_1s_2)^3` has six. */
+const factorCount = (e: Expr): number =>
+  e.type === 'multiply' ? e.factors.reduce((n, f) => n + factorCount(f), 0) : e.type === 'power' ? e.exponent * factorCount(e.base) : 1
 const isOne = (e: Expr) => e.type === 'integer' && e.value === '1'
 
 /**
- * `s_2s_1s_2 = s_1s_2s_1`, `s_1^2 = 1`: relations between words in simple transpositions. Read as
- * Schur functions they would be false alarms; `s_1 s_1 = s_2` (one factor on a side) stays a claim.
+ * `s_2s_1s_2 = s_1s_2s_1`, `s_1^2 = 1`, `(s_1s_2)^3 = 1`: relations between words in simple
+ * transpositions. Read as Schur functions they would be false alarms; `s_1 s_1 = s_2` (one
+ * factor on a side) stays a claim.
  */
 function isGroupWordEquation(lhs: Expr, rhs: Expr): boolean {
   if (isTranspositionWord(lhs) && isTranspositionWord(rhs)) return factorCount(lhs) >= 2 && factorCount(rhs) >= 2
   return (isTranspositionWord(lhs) && factorCount(lhs) >= 2 && isOne(rhs)) || (isTranspositionWord(rhs) && factorCount(rhs) >= 2 && isOne(lhs))
+}
+
+/** `e`, `1`, `\mathrm{id}`, `\operatorname{Id}`, `\mathrm{e}`: the identity element of a group. */
+function isIdentityElement(nodes: MathNode[]): boolean {
+  if (nodes.length === 1) {
+    const n = nodes[0]!
+    if (n.k === 'ch') return n.v === 'e' || n.v === '1'
+    if (n.k === 'cs') return n.v === 'id' || n.v === 'Id'
+    if (n.k === 'group') return isIdentityElement(n.children)
+    return false
+  }
+  if (nodes.length === 2 && nodes[0]!.k === 'cs' && /^(mathrm|operatorname|text|textrm|mathit|mathbf)$/.test(nodes[0]!.v)) {
+    const arg = nodes[1]!
+    const text = arg.k === 'group' ? arg.children.map(c => (c.k === 'ch' ? c.v : '?')).join('') : arg.k === 'ch' ? arg.v : '?'
+    return /^(id|Id|e|1)$/.test(text)
+  }
+  return false
+}
+
+/** A word in simple transpositions set equal to the identity (`(s_1s_2)^3 = e`, `s_1^2 = \mathrm{id}`). */
+function isWordEqualToIdentity(word: SideResult, other: MathNode[]): boolean {
+  return word.ok && isTranspositionWord(word.expr) && factorCount(word.expr) >= 2 && isIdentityElement(other)
 }
 
 /** Cycle notation `(132)` as a factor at the top of a side (not an argument `f(132)` or an index). */
@@ -117,6 +145,12 @@ function hasCycleFactor(nodes: MathNode[]): boolean {
   return false
 }
 
+/** A whole side in cycle notation, `(1\,3)`, `(132)`: a permutation, never the number 13 or 132. */
+function isLoneCycle(nodes: MathNode[]): boolean {
+  if (nodes.length < 4 || !isChar(nodes[0], '(') || !isChar(nodes[nodes.length - 1], ')')) return false
+  return nodes.slice(1, -1).every(n => n.k === 'ch' && /^\d$/.test(n.v))
+}
+
 /** Commands and environments that draw a filled tableau (not just a shape). */
 const DRAWN_TABLEAU = new Set(['ytableaushort', 'young', 'youngtab', 'Young', 'tableau'])
 
@@ -128,6 +162,130 @@ function containsDrawnTableau(nodes: MathNode[]): boolean {
     (n.k === 'group' && containsDrawnTableau(n.children)))
 }
 
+/** Set-builder braces (`\{`, `\}`, `\lbrace`, `\rbrace`) and the angle brackets of generators (`\langle s_1, s_2 \rangle`). */
+const isSetOpen = (n: MathNode) => n.k === 'cs' && (n.v === '{' || n.v === 'lbrace' || n.v === 'langle')
+const isSetClose = (n: MathNode) => n.k === 'cs' && (n.v === '}' || n.v === 'rbrace' || n.v === 'rangle')
+
+/**
+ * A side cut out of a set `\{ w \in S_n : \ell(w) = k \}` (or out of `\langle s_1, s_2 \rangle`
+ * at a comma): a set brace that does not close on the same side. The equation is a condition on
+ * the members of a set, or part of a list of generators, not a claim.
+ */
+function isInsideSet(lhsNodes: MathNode[], rhsNodes: MathNode[]): boolean {
+  const balance = (nodes: MathNode[]) => {
+    let depth = 0
+    let min = 0
+    for (const n of nodes) {
+      if (isSetOpen(n)) depth++
+      else if (isSetClose(n)) min = Math.min(min, --depth)
+    }
+    return { depth, min }
+  }
+  const unbalanced = (b: { depth: number; min: number }) => b.depth !== 0 || b.min < 0
+  return unbalanced(balance(lhsNodes)) || unbalanced(balance(rhsNodes))
+}
+
+/** A side that is a tuple `(c_1, \dots, c_n)`, `\left(a, b\right)`: a sequence, not a value. */
+function isTuple(nodes: MathNode[]): boolean {
+  let inner: MathNode[]
+  if (isChar(nodes[0], '(') && isChar(nodes[nodes.length - 1], ')')) inner = nodes.slice(1, -1)
+  else if (nodes[0]?.k === 'cs' && nodes[0].v === 'left' && isChar(nodes[1], '(') && nodes[nodes.length - 2]?.k === 'cs' && (nodes[nodes.length - 2] as { v: string }).v === 'right') inner = nodes.slice(2, -2)
+  else return false
+  let depth = 0
+  let comma = false
+  for (const n of inner) {
+    if (isChar(n, '(') || isChar(n, '[')) depth++
+    else if (isChar(n, ')') || isChar(n, ']')) {
+      // `(a)(b)`: the first parenthesis closes before the end, so the side is no single tuple.
+      if (--depth < 0) return false
+    } else if (depth === 0 && isChar(n, ',')) comma = true
+  }
+  return comma && depth === 0
+}
+
+/**
+ * Around a math region: the letters its sentence makes general ("for every $w$", "$w \\mapsto
+ * w^{-1}$", "$\\forall w$"), whose bindings then do not apply; whether the paragraph is about a
+ * group (S_n, transpositions, Coxeter or braid relations) or plainly about Schur functions; and
+ * whether the sentence first gives variables values. Each is read from the masked text (comments
+ * and code blanked) only when a rule asks, since most regions need none of them.
+ */
+export interface Surroundings {
+  readonly generalLetters: ReadonlySet<string>
+  readonly topic: 'group' | 'schur' | undefined
+  /** The sentence sets variables to values first ("Using $x_1 = 1, x_2 = 2$ we get …"). */
+  /** The variables the sentence gives values before the math (`x_3 = 0` gives "x_3"), empty when none. */
+  readonly substituted: ReadonlySet<string>
+}
+
+export const NO_SURROUNDINGS: Surroundings = { generalLetters: new Set(), topic: undefined, substituted: new Set() }
+
+/** `$x_1 = 1`, `x_{2} = -y_2`, `, x_3 = 0`: a variable given a value in the math of a sentence. */
+const VARIABLE_SET = /(?:^|[$,;\s(])([xy])_\{?([0-9a-z])\}?\s*=\s*(?:-\s*)?(?:\d|[xy]_)/g
+const QUANTIFIED = /(?:\bfor\s+(?:all|every|each|any)\s*\$\s*|\\forall\s*)([a-zA-Z]|\\[a-zA-Z]+)(?![a-zA-Z])/gi
+const MAPPED = /(?:^|[^\\a-zA-Z])([a-zA-Z]|\\[a-zA-Z]+)\s*\\mapsto/g
+const GROUP_WORDS = /\b(groups?|transpositions?|coxeter|braid|reflections?|generators?|relations?|permutations?|reduced words?|weyl)\b|\bS_\{?[0-9n]|\\mathfrak\{?S\}?_\{?[n0-9]\}?\b/i
+const SCHUR_WORDS = /\bschur\b|\bsymmetric functions?\b/i
+
+/** The surroundings of the region starting at `pos`: the sentence and the paragraph before it. */
+export function surroundingsOf(masked: string, pos: number): Surroundings {
+  let paragraphText: string | undefined
+  let sentenceText: string | undefined
+  const paragraph = () => {
+    if (paragraphText === undefined) {
+      paragraphText = masked.slice(Math.max(0, pos - 600), pos)
+      const par = paragraphText.lastIndexOf('\n\n')
+      if (par >= 0) paragraphText = paragraphText.slice(par + 2)
+    }
+    return paragraphText
+  }
+  // The sentence: back to the last full stop followed by a space (math rarely holds one).
+  const sentence = () => {
+    if (sentenceText === undefined) {
+      const text = paragraph()
+      const stop = Math.max(text.lastIndexOf('. '), text.lastIndexOf('.\n'))
+      sentenceText = stop >= 0 ? text.slice(stop + 2) : text
+    }
+    return sentenceText
+  }
+  let letters: Set<string> | undefined
+  let topic: { value: 'group' | 'schur' | undefined } | undefined
+  let substituted: Set<string> | undefined
+  return {
+    get generalLetters() {
+      if (!letters) {
+        letters = new Set<string>()
+        const text = sentence()
+        if (text.includes('mapsto') || /for|forall/i.test(text)) {
+          for (const m of text.matchAll(QUANTIFIED)) letters.add(m[1]!)
+          for (const m of text.matchAll(MAPPED)) letters.add(m[1]!)
+        }
+      }
+      return letters
+    },
+    get topic() {
+      topic ??= { value: GROUP_WORDS.test(paragraph()) ? 'group' : SCHUR_WORDS.test(paragraph()) ? 'schur' : undefined }
+      return topic.value
+    },
+    get substituted() {
+      substituted ??= new Set([...sentence().matchAll(VARIABLE_SET)].map(m => `${m[1]}_${m[2]}`))
+      return substituted
+    },
+  }
+}
+
+/**
+ * Whether a substitution earlier in the sentence can change the claim. Only a claim that lists its
+ * variables, `e_3(x_1,x_2) = 0` after "Setting $x_3 = 0$", and names none of the substituted ones
+ * is untouched; one with no argument list (`\mathfrak{S}_{132} = 3`) lives in every variable.
+ */
+function touchedBySubstitution(step: StepToJudge, substituted: ReadonlySet<string>): boolean {
+  if (substituted.size === 0) return false
+  const text = renderNodes([...step.lhsNodes, ...step.rhsNodes]).replace(/[{}\s]/g, '')
+  if (!/\((?:[a-z]_|[a-z][,;|)])/.test(text)) return true
+  return [...substituted].some(variable => text.includes(variable))
+}
+
 export interface StepToJudge {
   lhs: SideResult
   rhs: SideResult
@@ -137,6 +295,8 @@ export interface StepToJudge {
   definingLeadIn: boolean
   /** A later step of a chain already about an object: plain numbers still belong to it. */
   inObjectChain: boolean
+  /** What the sentence and paragraph around the step say (general letters, group or Schur topic). */
+  surroundings?: Surroundings
 }
 
 /**
@@ -149,11 +309,23 @@ export function judgeStep(step: StepToJudge): StepJudgement {
   if (containsDrawnTableau(step.lhsNodes) || containsDrawnTableau(step.rhsNodes)) {
     return { type: 'notRead', reason: 'a tableau drawn with \\ytableaushort or \\young is not read; only \\ydiagram shapes are' }
   }
-  if (hasCycleFactor(step.lhsNodes) || hasCycleFactor(step.rhsNodes)) return { type: 'notRead', reason: 'a product of permutations in the symmetric group' }
+  if (hasCycleFactor(step.lhsNodes) || hasCycleFactor(step.rhsNodes) || isLoneCycle(step.lhsNodes) || isLoneCycle(step.rhsNodes)) return { type: 'notRead', reason: 'a product of permutations in the symmetric group' }
+  if (isInsideSet(step.lhsNodes, step.rhsNodes)) return { type: 'notRead', reason: 'a condition inside a set {… : …} or a part of ⟨…⟩, not a claim' }
+  if (isTuple(step.lhsNodes) || isTuple(step.rhsNodes)) return { type: 'notRead', reason: 'a tuple (…, …) is a sequence of values, not an object Scholium checks' }
+  const surroundings = step.surroundings ?? NO_SURROUNDINGS
+  const general = l.used.size || r.used.size ? [...l.used.keys(), ...r.used.keys()].find(name => surroundings.generalLetters.has(name)) : undefined
+  if (general) return { type: 'notRead', reason: `${general} stands for any ${general} in this sentence (for every ${general}, ${general} ↦ …): a general statement, not the bound example` }
+  // After "Using $x_1 = 1$" in the same sentence, an object set equal to a value is evaluated there.
+  if (((l.ok && containsObject(l.expr)) || (r.ok && containsObject(r.expr))) && touchedBySubstitution(step, surroundings.substituted)) {
+    return { type: 'notRead', reason: 'the sentence first gives the variables values (x_i = …): the claim holds under that substitution, which is not read' }
+  }
+  // A word in the s_i is a product in the symmetric group unless the paragraph plainly speaks of Schur functions.
+  const groupWords = () => surroundings.topic !== 'schur'
+  if ((isWordEqualToIdentity(l, step.rhsNodes) || isWordEqualToIdentity(r, step.lhsNodes)) && groupWords()) {
+    return { type: 'notRead', reason: GROUP_WORD_REASON }
+  }
   if (l.ok && r.ok) {
-    if (isGroupWordEquation(l.expr, r.expr)) {
-      return { type: 'notRead', reason: 'a word in simple transpositions s_i (a product in the group), not Schur functions' }
-    }
+    if (isGroupWordEquation(l.expr, r.expr) && groupWords()) return { type: 'notRead', reason: GROUP_WORD_REASON }
     if (isSubstitution(l.expr, r.expr)) return { type: 'silent' }
     if (isSymmetricEqualToNumber(l.expr, r.expr)) return { type: 'silent' }
     if (containsObject(l.expr) || containsObject(r.expr)) return { type: 'claim' }
@@ -183,10 +355,16 @@ export function judgeStep(step: StepToJudge): StepJudgement {
     if (containsObject(good.expr) || exprTypes(good.expr).has('variable')) return { type: 'notRead', reason: shortReason(bad.reason) }
     return { type: 'silent' }
   }
+  // `M = N - \ell(w)`, `F_5 = \mathbb{C}^5`: a letter the reader does not know, set equal to
+  // something it cannot read either, is being named or defined, even if the other side mentions ℓ(w).
+  const named = !l.ok && !l.recognised && isLoneSymbol(step.lhsNodes) ? l : !r.ok && !r.recognised && isLoneSymbol(step.rhsNodes) ? r : undefined
+  if (named && !named.ok) return { type: 'notRead', reason: `${named.reason}: a letter named or defined here, not an object` }
   const recognised = failures.find(f => f.recognised)
   if (recognised) return { type: 'unsupported', reason: recognised.reason }
   return { type: 'notRead', reason: shortReason(failures[0]!.reason) }
 }
+
+const GROUP_WORD_REASON = 'a word in simple transpositions s_i (a product in the group), not Schur functions'
 
 /**
  * The not-read reason for an unbound letter, keeping the advice that fits it: `w is not bound

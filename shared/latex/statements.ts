@@ -36,10 +36,11 @@ export function readStatements(tree: MathNode[], env: string | undefined): ReadS
   return out
 }
 
-const isStatementBreak = (node: MathNode | undefined) => !!node && node.k === 'cs' && (node.v === 'quad' || node.v === 'qquad')
+// An empty group `{}` at a row's end (`x_1x_2^2 + {} \\`) only makes the sign binary: trimmed too.
+const isStatementBreak = (node: MathNode | undefined) => !!node && ((node.k === 'cs' && (node.v === 'quad' || node.v === 'qquad')) || (node.k === 'group' && node.children.length === 0))
 const isSign = (node: MathNode | undefined) => isChar(node, '+') || isChar(node, '-')
 
-/** The nodes without \quad at either end. */
+/** The nodes without \quad or `{}` at either end. */
 function trimBreaks(nodes: MathNode[]): MathNode[] {
   let start = 0
   let end = nodes.length

@@ -6,6 +6,13 @@
  * - an index table: one header cell is a bindable letter (`$w$`, `$\lambda$`) and another an
  *   object written in it (`$\mathfrak{S}_w$`, `$s_\lambda(x_1,x_2)$`, `$\#\mathrm{PD}(w)$`); each row
  *   then claims "object at this row's index = this row's cell";
+ * - a transposed index table: the letter and the indices in the first row (`$w$ & $132$ & $213$`),
+ *   objects written in the letter in the first column; each cell claims "row's object at this
+ *   column's index = cell". Every filled cell of the first row must read as an index;
+ * - a two-letter table: an object in two letters in the corner (`$c^{(3,2,1)}_{\lambda\mu}$`),
+ *   values of one letter as row heads and of the other as column heads; at least one side writes
+ *   its letter (`$\mu = (2,1)$`), so that which letter runs along the rows is never guessed. Each
+ *   cell claims "corner at this row's and this column's value = cell";
  * - a multiplication table: an empty (or ·, ×) corner, objects as column heads and row heads;
  *   each cell claims "row head · column head = cell".
  * A table whose header names no object Scholium knows yields no claim: it is never guessed at.
@@ -310,7 +317,8 @@ export function readTable(grid: TableGrid, ctx: ParseContext): TableReading {
   if (headerAt < 0) return { kind: 'none' }
   const header = grid.rows[headerAt]!
   const body = grid.rows.slice(headerAt + 1).filter(row => !sameCells(row, header))
-  return readIndexTable(grid, header, body, ctx) ?? readMultiplicationTable(grid, header, body, ctx) ?? { kind: 'none' }
+  return readIndexTable(grid, header, body, ctx) ?? readTransposedIndexTable(grid, header, body, ctx) ?? readTwoLetterTable(grid, header, body, ctx)
+    ?? readMultiplicationTable(grid, header, body, ctx) ?? { kind: 'none' }
 }
 
 function readIndexTable(grid: TableGrid, header: TableRow, body: TableRow[], ctx: ParseContext): TableReading | undefined {
@@ -360,6 +368,141 @@ function readIndexTable(grid: TableGrid, header: TableRow, body: TableRow[], ctx
       })
     })
   }
+  return { kind: 'index', steps, unreadRows, otherCells }
+}
+
+/** `$w$ & $132$ & $213$` over rows `$\mathfrak{S}_w$ & $x_1+x_2$ & $x_1$`: the index table turned on its side. */
+function readTransposedIndexTable(grid: TableGrid, header: TableRow, body: TableRow[], ctx: ParseContext): TableReading | undefined {
+  const first = header.cells[0]
+  const symbol = first?.nodes ? bindableSymbol(first.nodes) : undefined
+  if (!symbol || ctx.bindings.has(symbol.name)) return undefined
+  const indices = header.cells.map((cell, column) => (column === 0 || !cell.filled ? undefined : cell.nodes ? readIndexValue(cell.nodes, symbol.family, ctx) : undefined))
+  const filled = header.cells.filter((cell, column) => column > 0 && cell.filled).length
+  // Every filled head of the first row is an index: a row of anything else is not this shape.
+  if (!filled || indices.filter(v => v !== undefined).length !== filled) return undefined
+  const firstIndex = indices.find(v => v !== undefined)!
+  const isObjectRow = (row: TableRow) => {
+    const head = row.cells[0]?.nodes
+    if (!head || !mentionsSymbol(head, symbol.name)) return false
+    const parsed = SideParser.parseSide(head, { ...ctx, bindings: withBinding(ctx.bindings, symbol.name, firstIndex) })
+    return parsed.ok && containsObject(parsed.expr)
+  }
+  if (!body.some(isObjectRow)) return undefined
+
+  const steps: TableStep[] = []
+  const unreadRows: TableRow[] = []
+  const otherCells: TableCell[] = []
+  for (const row of body) {
+    if (!isObjectRow(row)) {
+      if (row.cells.some(c => c.nodes || c.regions.length)) unreadRows.push(row)
+      continue
+    }
+    const head = row.cells[0]!
+    row.cells.forEach((cell, column) => {
+      if (column === 0 || !cell.filled) return
+      const index = indices[column]
+      if (!index || !cell.nodes || hasRelation(cell.nodes)) {
+        otherCells.push(cell)
+        return
+      }
+      steps.push({
+        lhs: head.nodes!, rhs: cell.nodes,
+        pos: cell.pos, end: cell.end,
+        source: `${mathSource(grid.file, head)} = ${mathSource(grid.file, cell)} at ${symbol.name} = ${mathSource(grid.file, header.cells[column]!)}`,
+        bindings: withBinding(ctx.bindings, symbol.name, index),
+      })
+    })
+  }
+  return { kind: 'index', steps, unreadRows, otherCells }
+}
+
+/** A head cell `$\mu = (2,1)$`: the letter and its value's nodes; a bare `$(2,1)$` gives only the value. */
+function headValue(nodes: MathNode[] | undefined): { letter?: string; value: MathNode[] } | undefined {
+  if (!nodes) return undefined
+  const statements = splitStatements(nodes)
+  if (statements.length !== 1) return undefined
+  const [statement] = statements
+  if (statement!.relations.length === 0) return { value: nodes }
+  if (statement!.relations.length !== 1 || statement!.relations[0]!.rel !== '=') return undefined
+  const symbol = bindableSymbol(statement!.parts[0]!)
+  return symbol && statement!.parts[1]!.length ? { letter: symbol.name, value: statement!.parts[1]! } : undefined
+}
+
+/** The letters of permutations and partitions a corner mentions that the text has not bound. */
+function freeIndexLetters(nodes: MathNode[], ctx: ParseContext, out = new Set<string>()): Set<string> {
+  for (const node of nodes) {
+    if (node.k === 'group' || node.k === 'env') freeIndexLetters(node.children, ctx, out)
+    else {
+      const symbol = bindableSymbol([node])
+      if (symbol && symbol.family !== 'integer' && !ctx.bindings.has(symbol.name)) out.add(symbol.name)
+    }
+  }
+  return out
+}
+
+/**
+ * A table of an object in two letters: `$c^{321}_{\lambda\mu}$` in the corner, `$\mu = (2,1)$`
+ * heading the columns and `$\lambda = (2,1)$` (or a bare `$(2,1)$`) heading the rows.
+ */
+function readTwoLetterTable(grid: TableGrid, header: TableRow, body: TableRow[], ctx: ParseContext): TableReading | undefined {
+  const corner = header.cells[0]
+  if (!corner?.nodes || hasRelation(corner.nodes)) return undefined
+  const letters = [...freeIndexLetters(corner.nodes, ctx)]
+  if (letters.length !== 2) return undefined
+  const columnHeads = header.cells.map((cell, column) => (column === 0 || !cell.filled ? undefined : headValue(cell.nodes)))
+  const rowHeads = body.map(row => headValue(row.cells[0]?.nodes))
+  const filledColumns = header.cells.filter((cell, column) => column > 0 && cell.filled).length
+  if (!filledColumns || columnHeads.filter(h => h).length !== filledColumns || !rowHeads.some(h => h)) return undefined
+  // Which letter runs along which side: written on at least one side, the same on every head of it.
+  const sideLetter = (heads: ({ letter?: string } | undefined)[]): string | null | undefined => {
+    const written = new Set(heads.filter(h => h).map(h => h!.letter ?? ''))
+    if (written.size !== 1) return written.size === 0 ? undefined : null
+    const [only] = written
+    return only === '' ? undefined : only
+  }
+  const columnWritten = sideLetter(columnHeads)
+  const rowWritten = sideLetter(rowHeads)
+  if (columnWritten === null || rowWritten === null || (!columnWritten && !rowWritten)) return undefined
+  const other = (letter: string) => letters.find(l => l !== letter)
+  const columnLetter = columnWritten ?? other(rowWritten!)
+  const rowLetter = rowWritten ?? other(columnWritten!)
+  if (!columnLetter || !rowLetter || columnLetter === rowLetter || !letters.includes(columnLetter) || !letters.includes(rowLetter)) return undefined
+  const familyOf = (letter: string) => bindableSymbol([{ k: letter.startsWith('\\') ? 'cs' : 'ch', v: letter.replace(/^\\/, ''), pos: 0, end: 0 }])!.family
+  const columnValues = columnHeads.map(h => (h ? readIndexValue(h.value, familyOf(columnLetter), ctx) : undefined))
+  if (columnValues.filter(v => v).length !== filledColumns) return undefined
+  const rowValues = rowHeads.map(h => (h ? readIndexValue(h.value, familyOf(rowLetter), ctx) : undefined))
+  const bindingsAt = (row: ContextValue, column: ContextValue) => withBinding(withBinding(ctx.bindings, rowLetter, row), columnLetter, column)
+  const firstRow = rowValues.find(v => v)
+  if (!firstRow) return undefined
+  const parsed = SideParser.parseSide(corner.nodes, { ...ctx, bindings: bindingsAt(firstRow, columnValues.find(v => v)!) })
+  if (!parsed.ok || !containsObject(parsed.expr)) return undefined
+
+  const steps: TableStep[] = []
+  const unreadRows: TableRow[] = []
+  const otherCells: TableCell[] = []
+  body.forEach((row, r) => {
+    const rowValue = rowValues[r]
+    if (!rowValue) {
+      if (row.cells.some(c => c.nodes || c.regions.length)) unreadRows.push(row)
+      return
+    }
+    const rowHead = row.cells[0]!
+    row.cells.forEach((cell, column) => {
+      if (column === 0 || !cell.filled) return
+      const columnValue = columnValues[column]
+      if (!columnValue || !cell.nodes || hasRelation(cell.nodes)) {
+        otherCells.push(cell)
+        return
+      }
+      const at = (letter: string, head: TableCell) => `${headValue(head.nodes)!.letter ? '' : `${letter} = `}${mathSource(grid.file, head)}`
+      steps.push({
+        lhs: corner.nodes!, rhs: cell.nodes,
+        pos: cell.pos, end: cell.end,
+        source: `${mathSource(grid.file, corner)} = ${mathSource(grid.file, cell)} at ${at(rowLetter, rowHead)}, ${at(columnLetter, header.cells[column]!)}`,
+        bindings: bindingsAt(rowValue, columnValue),
+      })
+    })
+  })
   return { kind: 'index', steps, unreadRows, otherCells }
 }
 

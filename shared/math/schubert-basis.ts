@@ -20,14 +20,24 @@ import { doubleSchubertPolynomial, packedSchubert, schubertPolynomial, transitio
 import { NotInSpanError } from './errors'
 import { accumulate, addChecked, mulChecked, negateCoefficient, type Coefficient } from './coefficient'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
+import { PackedRangeExceeded, packedKeys, packedTransitionProduct } from './packed-product'
 
 export type SchubertCombination = Map<string, Coefficient>
 
+// Made on first use: creating a collator loads ICU data, a few ms at the start of every process.
+let keyOrder: Intl.Collator | undefined
+
 /** Sorted list form of a combination: longest permutations first, then by one-line. */
 export function combinationEntries(c: SchubertCombination): { permutation: Permutation; coefficient: Coefficient }[] {
+  // Length and key once per entry, not once per comparison: a product of thousands of terms is
+  // sorted for every report (the collator orders as localeCompare does, at a fraction of its cost).
   return [...c]
-    .map(([k, coefficient]) => ({ permutation: Permutation.fromOneLine(k === '' ? [] : k.split(',').map(Number)), coefficient }))
-    .sort((a, b) => b.permutation.length() - a.permutation.length() || a.permutation.key.localeCompare(b.permutation.key))
+    .map(([k, coefficient]) => {
+      const permutation = Permutation.fromOneLine(k === '' ? [] : k.split(',').map(Number))
+      return { permutation, coefficient, length: permutation.length(), key: permutation.key }
+    })
+    .sort((a, b) => b.length - a.length || (keyOrder ??= new Intl.Collator()).compare(a.key, b.key))
+    .map(({ permutation, coefficient }) => ({ permutation, coefficient }))
 }
 
 /** Compare two combinations for equality. */
@@ -272,11 +282,23 @@ export function structureConstant(u: Permutation, v: Permutation, w: Permutation
   return schubertProduct(u, v, budget).get(w.key) ?? 0
 }
 
-/** S_u · S_v by the transition recursion on u (memoised), multiplying by x_r with the Monk-derived rule. */
-export function schubertProductByTransition(u: Permutation, v: Permutation, budget?: Budget | BudgetMeter): SchubertCombination {
+/**
+ * S_u · S_v by the transition recursion on u (memoised), multiplying by x_r with the Monk-derived rule.
+ * Route 'packed' (the default when the keys fit, see packed-product.ts) holds combinations in
+ * typed arrays and falls back to 'exact' if a coefficient passes 2^53 − 1; 'exact' keeps Maps
+ * of exact coefficients throughout (kept callable so that tests compare the two).
+ */
+export function schubertProductByTransition(u: Permutation, v: Permutation, budget?: Budget | BudgetMeter, route: 'packed' | 'exact' = 'packed'): SchubertCombination {
   const meter = toMeter(budget)
-  const ctx = numericContext(u, v)
-  if (ctx) return productByTransitionNumeric(u, v, ctx, meter)
+  const keys = route === 'packed' ? packedKeys(u, v) : undefined
+  if (keys) {
+    try {
+      return packedTransitionProduct(u, v, keys, meter)
+    }
+    catch (error) {
+      if (!(error instanceof PackedRangeExceeded)) throw error
+    }
+  }
   const memo = new Map<string, Map<string, Coefficient>>()
   const base = new Map<string, Coefficient>([[toInternal(v), 1]])
   const go = (line: number[]): Map<string, Coefficient> => {
@@ -313,156 +335,4 @@ export function transitionDagSize(w: Permutation, limit = 1e6): number {
     if (step) { stack.push(step.v); for (const o of step.others) stack.push(o) }
   }
   return seen.size
-}
-
-// ---- numeric-key fast path ------------------------------------------------------------
-//
-// Every permutation met while multiplying S_u · S_v by the transition recursion has all its
-// descents at positions ≤ D = max(last descent of u, of v), because every combination is the
-// (unique) expansion of a polynomial in x_1..x_D. Such a permutation is fixed by its first D
-// values (the rest increase), so it is keyed by the number Σ_{i≤D} w(i) B^{i−1}, exact
-// whenever B^D ≤ 2^53 with B bounding the values (B = D + ℓ(u) + ℓ(v) + 2 suffices, as
-// w(i) ≤ i + c_i(w) ≤ D + ℓ(w)).
-
-interface NumericContext {
-  D: number
-  B: number
-  /** P[i] = B^{i−1}, i = 1..D */
-  P: number[]
-  vals: Int32Array
-  present: Uint8Array
-}
-
-function numericContext(u: Permutation, v: Permutation): NumericContext | undefined {
-  const last = (w: Permutation): number => { const d = w.descents(); return d.length ? d[d.length - 1]! : 0 }
-  const D = Math.max(last(u), last(v), 1)
-  const B = D + u.length() + v.length() + 2
-  if (Math.pow(B, D) > Number.MAX_SAFE_INTEGER) return undefined
-  const P = [0]
-  for (let i = 1; i <= D; i++) P.push(Math.pow(B, i - 1))
-  return { D, B, P, vals: new Int32Array(D + 1), present: new Uint8Array(B + 2) }
-}
-
-function numericKey(w: Permutation, ctx: NumericContext): number {
-  let k = 0
-  for (let i = 1; i <= ctx.D; i++) k += w.at(i) * ctx.P[i]!
-  return k
-}
-
-function numericToPermutationKey(key: number, ctx: NumericContext): string {
-  const prefix: number[] = []
-  let rest = key
-  for (let i = 1; i <= ctx.D; i++) { prefix.push(rest % ctx.B); rest = Math.floor(rest / ctx.B) }
-  const used = new Set(prefix)
-  const line = prefix.slice()
-  const max = Math.max(...prefix, ctx.D)
-  for (let v = 1; v <= max; v++) if (!used.has(v)) line.push(v)
-  return Permutation.unchecked(line).key
-}
-
-// `accumulate` for the numeric product's hot loop: plain number addition, with addChecked only
-// called (to throw) past 2^53, where accumulate would switch to BigInt the product cannot hold.
-function addNum(m: Map<number, number>, k: number, c: number): void {
-  const old = m.get(k)
-  if (old === undefined) m.set(k, c)
-  else {
-    const v = old + c
-    if (v === 0) m.delete(k)
-    else {
-      if (v > Number.MAX_SAFE_INTEGER || v < -Number.MAX_SAFE_INTEGER) addChecked(old, c)
-      m.set(k, v)
-    }
-  }
-}
-
-function multiplyByVariableNumeric(r: number, comb: Map<number, number>, ctx: NumericContext, meter: BudgetMeter): Map<number, number> {
-  const out = new Map<number, number>()
-  const { D, B, P, vals, present } = ctx
-  for (const [key, c] of comb) {
-    let rest = key
-    for (let i = 1; i <= D; i++) {
-      const a = rest % B
-      vals[i] = a
-      present[a] = 1
-      rest = (rest - a) / B
-    }
-    const wr = vals[r]!
-    // up-moves within the prefix
-    let m = Infinity
-    for (let k = r + 1; k <= D; k++) {
-      const wk = vals[k]!
-      if (wk > wr && wk < m) {
-        m = wk
-        addNum(out, key + (wk - wr) * (P[r]! - P[k]!), c)
-      }
-    }
-    // up-move into the increasing tail: its smallest value above w(r)
-    let t = wr + 1
-    while (present[t]) t++
-    if (t < m) {
-      if (t >= B) throw new Error('internal: value bound exceeded in numeric product')
-      addNum(out, key + (t - wr) * P[r]!, c)
-    }
-    // down-moves
-    let M = -Infinity
-    for (let q = r - 1; q >= 1; q--) {
-      const wq = vals[q]!
-      if (wq < wr && wq > M) {
-        M = wq
-        addNum(out, key + (wr - wq) * (P[q]! - P[r]!), -c)
-      }
-    }
-    for (let i = 1; i <= D; i++) present[vals[i]!] = 0
-  }
-  meter.step(comb.size * D)
-  meter.terms(out.size, 'Schubert classes')
-  return out
-}
-
-function productByTransitionNumeric(u: Permutation, v: Permutation, ctx: NumericContext, meter: BudgetMeter): SchubertCombination {
-  // First pass: how many times each node of the transition recursion is used, so that an
-  // intermediate combination is dropped as soon as its last user has read it (keeps memory low).
-  const uses = new Map<string, number>()
-  const keyOf = (line: readonly number[]): { key: string; trimmed: readonly number[] } => {
-    const trimmed = trimFixedPoints(line)
-    return { key: trimmed.join(','), trimmed }
-  }
-  const visit = (line: readonly number[]): void => {
-    const { key, trimmed } = keyOf(line)
-    const seen = uses.get(key)
-    uses.set(key, (seen ?? 0) + 1)
-    if (seen !== undefined) return
-    const step = transitionStep(trimmed)
-    if (step) { visit(step.v); for (const o of step.others) visit(o) }
-  }
-  visit(u.oneLine)
-  const memo = new Map<string, Map<number, number>>()
-  const base = new Map<number, number>([[numericKey(v, ctx), 1]])
-  const release = (key: string): void => {
-    const left = uses.get(key)! - 1
-    uses.set(key, left)
-    if (left === 0) memo.delete(key)
-  }
-  const go = (line: readonly number[]): Map<number, number> => {
-    const { key, trimmed } = keyOf(line)
-    const hit = memo.get(key)
-    if (hit) return hit
-    const step = transitionStep(trimmed)
-    let result: Map<number, number>
-    if (!step) result = base
-    else {
-      result = multiplyByVariableNumeric(step.r, go(step.v), ctx, meter)
-      release(keyOf(step.v).key)
-      for (const o of step.others) {
-        for (const [k, c] of go(o)) addNum(result, k, c)
-        release(keyOf(o).key)
-      }
-      meter.terms(result.size, 'Schubert classes')
-    }
-    memo.set(key, result)
-    return result
-  }
-  const out: SchubertCombination = new Map()
-  for (const [k, c] of go(u.oneLine)) out.set(numericToPermutationKey(k, ctx), c)
-  return out
 }

@@ -3,21 +3,27 @@
  * engine uses:
  * - letters: `s_{21}(a,b,c)` means a = x_1, b = x_2, c = x_3 in the whole claim;
  * - from x_0: `m_{2}(x_0,x_1,x_2)` means x_i = x_{i+1} of the engine in the whole claim;
+ * - indexed in another letter: `s_{21}(z_1,z_2)` means z_i = x_i in the whole claim (the indices
+ *   must run 1, 2, …, k);
  * - a second alphabet z: `\mathfrak{S}_w(x;z)` or `(x|z)` means z_j = y_j.
  *
  * Conventions (precision first): a list declares an alphabet only when it follows a subscript
  * (the argument list of an object such as s_λ or \mathfrak{S}_w); two different declarations in
- * one claim, or letters next to explicit x_i or y_j, declare nothing.
+ * one claim, letters or another indexed alphabet next to explicit x_i or y_j, and a second
+ * alphabet z next to explicit y_j, declare nothing.
  */
 import { isChar, type MathNode } from '../math-tree'
 
 export type Alphabet =
   | { kind: 'letters'; letters: string[] }
   | { kind: 'fromZero' }
+  | { kind: 'indexed'; letter: string }
   | { kind: 'secondZ' }
 
 /** Letters never taken as an alphabet: the engine's own, and z (a second alphabet, below). */
 const RESERVED_LETTERS = new Set(['x', 'y', 'z'])
+/** Letters of objects the reader knows (s_λ, e_k, c^ν_{λμ}, q, …): never an indexed alphabet. */
+const OBJECT_LETTERS = new Set(['x', 's', 'e', 'h', 'm', 'p', 'c', 'q', 'w', 'u', 'v'])
 
 const unwrapGroup = (nodes: MathNode[]): MathNode[] => (nodes.length === 1 && nodes[0]!.k === 'group' ? unwrapGroup(nodes[0]!.children) : nodes)
 
@@ -37,6 +43,14 @@ const stripBold = (nodes: MathNode[]): MathNode[] => unwrapGroup(unwrapGroup(nod
 function singleLetter(nodes: MathNode[]): string | undefined {
   const ns = stripBold(nodes)
   return ns.length === 1 && ns[0]!.k === 'ch' && /^[a-z]$/.test(ns[0]!.v) ? ns[0]!.v : undefined
+}
+
+/** `z_3` → { letter: 'z', index: 3 } for one lowercase letter with a number index; undefined otherwise. */
+function indexedVariable(nodes: MathNode[]): { letter: string; index: number } | undefined {
+  const ns = stripBold(nodes)
+  const letter = ns[0]?.k === 'ch' && /^[a-z]$/.test(ns[0].v) ? ns[0].v : undefined
+  const index = letter === undefined ? undefined : indexOf(ns, letter)
+  return letter === undefined || index === undefined ? undefined : { letter, index }
 }
 
 /** `x_3` → 3 for the letter given; undefined otherwise. */
@@ -62,12 +76,15 @@ export function alphabetOfList(content: MathNode[]): Alphabet | undefined {
   }
   const indices = items.map(it => indexOf(it, 'x'))
   if (indices.length >= 1 && indices.every((v, k) => v === k)) return { kind: 'fromZero' }
+  const indexed = items.map(indexedVariable)
+  const letter = indexed[0]?.letter
+  if (letter && !OBJECT_LETTERS.has(letter) && indexed.every((v, k) => v?.letter === letter && v.index === k + 1)) return { kind: 'indexed', letter }
   return undefined
 }
 
-/** True if x_i or y_j occurs anywhere in the nodes. */
-function mentionsEngineVariables(nodes: MathNode[]): boolean {
-  return nodes.some((n, j) => ((isChar(n, 'x') || isChar(n, 'y')) && isChar(nodes[j + 1], '_')) || ((n.k === 'group' || n.k === 'env') && mentionsEngineVariables(n.children)))
+/** True if x_i or y_j (of the letters given) occurs anywhere in the nodes. */
+function mentionsEngineVariables(nodes: MathNode[], letters: readonly string[] = ['x', 'y']): boolean {
+  return nodes.some((n, j) => (n.k === 'ch' && letters.includes(n.v) && isChar(nodes[j + 1], '_')) || ((n.k === 'group' || n.k === 'env') && mentionsEngineVariables(n.children, letters)))
 }
 
 /** Argument lists that follow a subscript: `s_{21}(a,b,c)` gives the nodes of `a,b,c`. */
@@ -92,7 +109,7 @@ function argumentLists(nodes: MathNode[]): MathNode[][] {
 }
 
 const sameAlphabet = (a: Alphabet, b: Alphabet): boolean =>
-  a.kind === b.kind && (a.kind !== 'letters' || (b.kind === 'letters' && a.letters.join() === b.letters.join()))
+  a.kind === b.kind && (a.kind !== 'letters' || (b.kind === 'letters' && a.letters.join() === b.letters.join())) && (a.kind !== 'indexed' || (b.kind === 'indexed' && a.letter === b.letter))
 
 /**
  * The one alphabet the two sides of a claim declare, or undefined when they declare none or
@@ -103,5 +120,8 @@ export function declaredAlphabet(lhs: MathNode[], rhs: MathNode[]): Alphabet | u
   if (!found.length || !found.every(a => sameAlphabet(a, found[0]!))) return undefined
   const alphabet = found[0]!
   if (alphabet.kind === 'letters' && (mentionsEngineVariables(lhs) || mentionsEngineVariables(rhs))) return undefined
+  // z_i read as x_i (or z_j as y_j) only where no x_i or y_j of the engine's own stands beside it.
+  const clashing = alphabet.kind === 'indexed' ? ['x', 'y'].filter(l => l !== alphabet.letter) : alphabet.kind === 'secondZ' ? ['y'] : []
+  if (clashing.length && (mentionsEngineVariables(lhs, clashing) || mentionsEngineVariables(rhs, clashing))) return undefined
   return alphabet
 }

@@ -7,7 +7,7 @@ import { describe, it, expect } from 'vitest'
 import { execFileSync } from 'node:child_process'
 import { existsSync } from 'node:fs'
 import {
-  Permutation, allPermutations, schubertProduct, schurProduct, littlewoodRichardson, partitionsOf, partitionKey,
+  Permutation, allPermutations, parsePermutation, schubertProduct, schurProduct, littlewoodRichardson, partitionsOf, partitionKey,
 } from '../../../shared/math'
 import { seeded, randomPermutation, randomInt } from '../../unit/math/helpers'
 
@@ -64,6 +64,19 @@ describe('Schubert structure constants against lrcalc schubmult', () => {
       const u = randomPermutation(rand, n)
       const v = randomPermutation(rand, n)
       if (u.length() + v.length() > 16) continue
+      expect(sorted(schubertProduct(u, v)), `${u} * ${v}`).toEqual(sorted(schubmult(u, v)))
+    }
+  })
+  it('products of hundreds to thousands of terms in S_9 and S_10 (the typed-array route of packed-product.ts)', () => {
+    requireBinary(SCHUBMULT)
+    for (const [a, b] of [
+      ['826594731', '324918576'],
+      ['715364928', '482913675'],
+      ['[2,10,5,4,1,8,3,9,6,7]', '[9,6,3,7,1,8,2,10,4,5]'],
+      ['[9,2,3,10,6,7,1,8,4,5]', '[7,10,6,5,8,2,3,1,4,9]'],
+    ] as const) {
+      const u = parsePermutation(a)
+      const v = parsePermutation(b)
       expect(sorted(schubertProduct(u, v)), `${u} * ${v}`).toEqual(sorted(schubmult(u, v)))
     }
   })

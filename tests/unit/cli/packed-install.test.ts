@@ -8,7 +8,7 @@
  */
 import { describe, it, expect, beforeAll, afterAll } from 'vitest'
 import { execFileSync, spawnSync } from 'node:child_process'
-import { copyFileSync, existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs'
+import { copyFileSync, existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 
@@ -23,7 +23,7 @@ describe('packed install', () => {
     execFileSync(process.execPath, [join(ROOT, 'scripts/build-cli.mjs')], { cwd: ROOT, stdio: 'pipe' })
     const packed = JSON.parse(execFileSync('npm', ['pack', join(ROOT, 'dist/cli'), '--json', '--pack-destination', scratch], { cwd: scratch, encoding: 'utf8' }))
     const tarball = join(scratch, packed[0].filename as string)
-    expect(packed[0].files.map((f: { path: string }) => f.path).sort()).toEqual(['README.md', 'package.json', 'scholium.mjs'])
+    expect(packed[0].files.map((f: { path: string }) => f.path).sort()).toEqual(['README.md', 'package.json', 'scholium.cjs', 'scholium.code-cache', 'scholium.mjs'])
     const manifest = JSON.parse(readFileSync(join(ROOT, 'dist/cli/package.json'), 'utf8'))
     expect(manifest.dependencies).toBeUndefined()
 
@@ -41,5 +41,23 @@ describe('packed install', () => {
     expect(run.status).toBe(1)
     expect(run.stdout).toMatch(/5 verified, 1 mismatch/)
     expect(spawnSync(command, ['--version'], { encoding: 'utf8' }).stdout).toMatch(/^scholium engine \d+\.\d+\.\d+/)
+    // The archive readers are loaded on demand inside the bundle; a .tar.gz goes through them.
+    execFileSync('tar', ['czf', join(paperDir, 'paper.tar.gz'), '-C', paperDir, 'one-wrong.tex'])
+    const archive = spawnSync(command, ['check', 'paper.tar.gz'], { cwd: paperDir, encoding: 'utf8', env: { PATH: process.env.PATH, NO_COLOR: '1' } })
+    expect(archive.stderr).toBe('')
+    expect(archive.stdout).toMatch(/5 verified, 1 mismatch/)
+
+    // A damaged or missing code cache only costs time: V8 rejects it and compiles the bundle.
+    const cache = join(prefix, 'lib/node_modules/scholium/scholium.code-cache')
+    expect(existsSync(cache)).toBe(true)
+    writeFileSync(cache, readFileSync(cache).subarray(0, 1000))
+    const damaged = spawnSync(command, ['check', 'one-wrong.tex'], { cwd: paperDir, encoding: 'utf8', env: { PATH: process.env.PATH, NO_COLOR: '1' } })
+    expect(damaged.stderr).toBe('')
+    expect(damaged.status).toBe(1)
+    expect(damaged.stdout).toMatch(/5 verified, 1 mismatch/)
+    rmSync(cache)
+    const missing = spawnSync(command, ['check', 'one-wrong.tex'], { cwd: paperDir, encoding: 'utf8', env: { PATH: process.env.PATH, NO_COLOR: '1' } })
+    expect(missing.status).toBe(1)
+    expect(missing.stdout).toMatch(/5 verified, 1 mismatch/)
   }, 120_000)
 })

@@ -87,7 +87,7 @@ describe('starred and xparse definitions', () => {
   })
 
   it('marks a macro with an argument type it does not follow as unread: no claim, no guess', () => {
-    const tex = '\\NewDocumentCommand{\\Sw}{s m}{\\mathfrak{S}_{#2}}\n\\RenewDocumentCommand{\\ell}{s m}{\\#\\mathrm{Red}(#2)}\n$\\Sw{213} = x_1$ and $\\ell(2143) = 2$'
+    const tex = '\\NewDocumentCommand{\\Sw}{>{\\SplitList{,}}m}{\\mathfrak{S}_{#1}}\n\\RenewDocumentCommand{\\ell}{g m}{\\#\\mathrm{Red}(#2)}\n$\\Sw{213} = x_1$ and $\\ell(2143) = 2$'
     const r = readSnippet(tex)
     expect(r.claims).toEqual([])
     expect(r.notRead.map(n => n.source)).toEqual(['\\Sw{213} = x_1', '\\ell(2143) = 2'])
@@ -96,8 +96,8 @@ describe('starred and xparse definitions', () => {
 
   it('parses argument specifications', () => {
     expect(parseArgumentSpec(tokenize('m O{1} +o'))).toEqual({ args: [{ kind: 'mandatory' }, { kind: 'optional', default: [expect.objectContaining({ v: '1' })] }, { kind: 'optional' }] })
-    expect(parseArgumentSpec(tokenize('r()'))).toEqual({ unread: expect.stringMatching(/"r" is not followed/) })
-    expect(parseArgumentSpec(tokenize('m e{^_}'))).toEqual({ unread: expect.stringMatching(/"e"/) })
+    expect(parseArgumentSpec(tokenize('>{\\SplitList{,}}m'))).toEqual({ unread: expect.stringMatching(/">" is not followed/) })
+    expect(parseArgumentSpec(tokenize('m b'))).toEqual({ unread: expect.stringMatching(/"b"/) })
   })
 })
 

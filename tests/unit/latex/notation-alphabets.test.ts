@@ -85,4 +85,27 @@ describe('alphabets a claim declares in an argument list', () => {
     expect(verdictsOf('$e_{2}(a,b) = ab$')).toEqual(['verified'])
     expect(verdictsOf('$e_{2}(a,b) = a^2$')).toEqual(['mismatch'])
   })
+
+  // sympy, bialternant: s_21(z_1,z_2) = z1**2*z2 + z1*z2**2; s_1(t_1,t_2,t_3) = t1 + t2 + t3 (definition).
+  it('reads s_{21}(z_1,z_2) in the indexed alphabet z as x, and flags a wrong term', () => {
+    expect(onlyQuestion('$s_{21}(z_1,z_2) = z_1^2z_2 + z_1z_2^2$').lhs).toEqual({ type: 'symmetric', family: 'schur', index: [2, 1], variableCount: 2 })
+    expect(verdictsOf('$s_{21}(z_1,z_2) = z_1^2z_2 + z_1z_2^2$')).toEqual(['verified'])
+    expect(verdictsOf('$s_{21}(z_1,z_2) = z_1^2z_2 + z_1^2z_2^2$')).toEqual(['mismatch'])
+    expect(verdictsOf('$e_{1}(t_1,t_2,t_3) = t_1+t_2+t_3$')).toEqual(['verified'])
+  })
+
+  it('declares no indexed alphabet when the indices do not run from 1, beside x_i, or in an object letter', () => {
+    for (const tex of ['$s_{1}(z_2,z_3) = z_2+z_3$', '$s_{1}(z_1,z_2) = x_1+x_2$', '$s_{1}(z_1,z_2) = z_1+y_2$', '$s_{1}(e_1,e_2) = e_1+e_2$']) {
+      const verdicts = verdictsOf(tex)
+      expect(verdicts, tex).not.toContain('verified')
+      expect(verdicts, tex).not.toContain('mismatch')
+    }
+  })
+
+  // Regression: (x;z) next to an explicit y_1 read z as y and y as y, verifying a claim that mixes two alphabets.
+  it('does not read (x;z) when the claim also writes y_j', () => {
+    const verdicts = verdictsOf('$\\mathfrak{S}_{21}(x;z) = x_1 - y_1$')
+    expect(verdicts).not.toContain('verified')
+    expect(verdicts).not.toContain('mismatch')
+  })
 })

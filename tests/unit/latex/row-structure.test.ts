@@ -41,6 +41,15 @@ describe('continued rows', () => {
     expect(verdictsOf(tex)).toEqual(['verified', 'verified'])
   })
 
+  // Regression: `+ {} \\` (an empty group after the sign, to keep it binary) ended the claim at the first row.
+  it('continues a row that ends with "+ {}" and flags a wrong term on the next row', () => {
+    const row = (rest: string) => `\\begin{align}\ns_{21}(x_1,x_2,x_3) &= x_1^2x_2 + x_1^2x_3 + x_1x_2^2 + {} \\\\\n &\\quad ${rest}\n\\end{align}`
+    const tex = row('+ 2x_1x_2x_3 + x_1x_3^2 + x_2^2x_3 + x_2x_3^2')
+    expect(readSnippet(tex).claims.map(c => [c.line, c.endLine, c.status])).toEqual([[2, 3, 'ready']])
+    expect(verdictsOf(tex)).toEqual(['verified'])
+    expect(verdictsOf(row('{} + x_1x_2x_3 + x_1x_3^2 + x_2^2x_3 + x_2x_3^2'))).toEqual(['mismatch'])
+  })
+
   it('keeps gather rows that start with a minus sign as equations of their own', () => {
     const tex = '\\begin{gather}\n\\ell(21) = 1 \\\\\n-\\ell(321) = -3\n\\end{gather}'
     expect(readSnippet(tex).claims.map(c => c.line)).toEqual([2, 3])

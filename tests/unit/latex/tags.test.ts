@@ -62,7 +62,7 @@ describe('tags in a manuscript', () => {
   })
 
   it('forces a claim the reader would not report, saying why it cannot be read', () => {
-    expect(at(12)).toEqual([expect.objectContaining({ status: 'unsupported', tagged: true, reason: 'tagged as a claim, but unknown symbol a' })])
+    expect(at(12)).toEqual([expect.objectContaining({ status: 'unsupported', tagged: true, reason: 'tagged as a claim, but unknown symbol a: a letter named or defined here, not an object' })])
     expect(at(13)).toEqual([expect.objectContaining({ status: 'unsupported', kind: 'schubert', reason: 'the relation \\le is not checked; only equalities are' })])
   })
 
