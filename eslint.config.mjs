@@ -29,6 +29,12 @@ export default tseslint.config(
     },
   },
   {
+    // Slow cross-check routes (shared/math/oracles.ts) are witnesses for tests, never a path of the product.
+    files: ['**/*.ts', '**/*.vue', '**/*.mjs'],
+    ignores: ['tests/**'],
+    rules: { 'no-restricted-imports': ['error', { patterns: [{ regex: 'math/oracles(\\.ts)?$', message: 'shared/math/oracles.ts is only for tests.' }] }] },
+  },
+  {
     // Migrations are frozen in time and take Kysely<any>, as Kysely's own guide recommends.
     files: ['migrations/**/*.ts'],
     rules: { '@typescript-eslint/no-explicit-any': 'off' },

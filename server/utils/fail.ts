@@ -33,30 +33,32 @@ const DOMAIN_STATUS: Partial<Record<ApiErrorCode, number>> = {
   'rate-limited': 429,
 }
 
-/** Validates route parameters the same way. */
-export async function routeParamsAs<T>(event: H3Event, schema: ZodType<T>): Promise<T> {
-  return orInvalid(await getValidatedRouterParams(event, params => schema.safeParse(params)))
-}
-
 /** Validates the query string the same way. Example: `const { run } = await queryAs(event, z.object({ run: z.string().uuid().optional() }))` */
 export async function queryAs<T>(event: H3Event, schema: ZodType<T>): Promise<T> {
   return orInvalid(await getValidatedQuery(event, query => schema.safeParse(query)))
 }
 
-/** Route parameters `{ id }` where the id is a UUID: `await routeParamsAs(event, IdParams)`. */
-export const IdParams = z.object({ id: z.string().uuid() })
-
 /**
- * Route parameters that are all UUIDs, validated through getValidatedRouterParams with a UUID
- * schema. One that is not a UUID names nothing that exists, so the answer is 404, as for an id
- * the caller may not see (never 400, which would tell the two apart).
- * Example: `const { id, userId } = await idParamsAs(event, 'id', 'userId')`
+ * Reads and validates route parameters (getValidatedRouterParams). A parameter that does not
+ * validate names nothing that exists, so the answer is 404 not-found, as for a thing the caller may
+ * not see (never 400, which would tell the two apart).
+ * Example: `const { id, userId } = await routeParamsAs(event, uuidParams('id', 'userId'))`, or
+ * `const { token } = await routeParamsAs(event, z.object({ token: z.string().max(200) }))`.
  */
-export async function idParamsAs<K extends string>(event: H3Event, ...names: K[]): Promise<Record<K, string>> {
-  const schema = z.object(Object.fromEntries(names.map(n => [n, z.string().uuid()])) as Record<K, z.ZodString>)
+export async function routeParamsAs<T>(event: H3Event, schema: ZodType<T>): Promise<T> {
   const parsed = await getValidatedRouterParams(event, params => schema.safeParse(params))
   if (!parsed.success) fail(404, 'not-found', 'Nothing is here')
-  return parsed.data as Record<K, string>
+  return parsed.data
+}
+
+const uuidSchemas = new Map<string, ZodType>()
+
+/** The schema of route parameters that are all UUIDs (made once per list of names): `uuidParams('id', 'userId')`. */
+export function uuidParams<K extends string>(...names: K[]): ZodType<Record<K, string>> {
+  const key = names.join(',')
+  let schema = uuidSchemas.get(key)
+  if (!schema) uuidSchemas.set(key, (schema = z.object(Object.fromEntries(names.map(n => [n, z.string().uuid()])) as Record<K, z.ZodString>)))
+  return schema as ZodType<Record<K, string>>
 }
 
 function orInvalid<T>(parsed: { success: true, data: T } | { success: false, error: ZodError }): T {

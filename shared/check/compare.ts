@@ -11,11 +11,11 @@ import type { Expr } from '../types/claims'
 import type { ClaimDiff, DiffTerm, DiffWrongCoefficient } from '../types/report'
 import { DIFF_LIMIT } from '../types/report'
 import {
-  combinationEntries, monomialLatex, partitionFromKey, Permutation, polynomialDifference, schubertAtOnes, schubertExpansion,
-  schubertProduct, checkSupersymmetry, addChecked, mulChecked, absCoefficient, toCoefficient, parametricDifference, parametricMonomialLatex,
+  accumulate, combinationEntries, monomialLatex, partitionFromKey, Permutation, polynomialDifference, schubertAtOnes, schubertExpansion,
+  schubertProduct, checkSupersymmetry, mulChecked, absCoefficient, toCoefficient, parametricDifference, parametricMonomialLatex,
   type Coefficient, type SchubertCombination, type SchurCombination,
 } from '../math'
-import { evaluate, permutationOf, type EvaluationEnv } from './evaluate'
+import { evaluate, meantPermutation, permutationOf, type EvaluationEnv } from './evaluate'
 import { commonDenominator, INFINITE_WITH_FINITE, numeratorOver, simplifyValue, toBackStable, toParametric, toPolynomial, UnsupportedClaimError, type Value } from './values'
 import { compareInRing, isRingClaim } from './grassmannian'
 import { backStableDiff, backStableLatex } from './back-stable'
@@ -128,7 +128,7 @@ function invariantMismatch(schubertSide: Expr, other: Expr, env: EvaluationEnv, 
   // Both S_w(x) and S_w(x;y) are homogeneous of degree ℓ(w), and both give #PD(w) at x = 1, y = 0.
   if (schubertSide.type !== 'schubert' || !isPlainPolynomial(other)) return null
   const w = permutationOf(schubertSide.perm)
-  const atOnes = schubertAtOnes(env.conventions.indexing === 'perm-inverse' ? w.inverse() : w, env.meter)
+  const atOnes = schubertAtOnes(meantPermutation(w, env.conventions), env.meter)
   // A double polynomial has many more terms than pipe dreams: up to 2^ℓ(w) from one pipe dream.
   const large = schubertSide.variant === 'double' ? w.length() > 10 || atOnes > INVARIANTS_FIRST_ABOVE / 50n : atOnes > INVARIANTS_FIRST_ABOVE
   if (!large) return null
@@ -180,10 +180,8 @@ export function writtenSchubertCombination(expr: Expr, env: EvaluationEnv, expan
     else schubert = term
     if (schubert?.type !== 'schubert' || schubert.variant !== 'single') return false
     const w = permutationOf(schubert.perm)
-    const key = (env.conventions.indexing === 'perm-inverse' ? w.inverse() : w).key
-    const next = addChecked(out.get(key) ?? 0, coefficient)
-    if (next === 0) out.delete(key)
-    else out.set(key, next)
+    const key = meantPermutation(w, env.conventions).key
+    accumulate(out, key, coefficient)
     return true
   }
   const terms = expr.type === 'add' ? expr.terms : [expr]
@@ -195,10 +193,7 @@ export function writtenSchubertCombination(expr: Expr, env: EvaluationEnv, expan
 /** The left side in the Schubert basis: products of two Schubert polynomials by the engine's product, else by expansion. */
 function schubertCombinationOfSide(expr: Expr, env: EvaluationEnv): SchubertCombination {
   if (expr.type === 'multiply' && expr.factors.length === 2 && expr.factors.every(f => f.type === 'schubert' && f.variant === 'single')) {
-    const [u, v] = expr.factors.map(f => {
-      const w = permutationOf((f as Extract<Expr, { type: 'schubert' }>).perm)
-      return env.conventions.indexing === 'perm-inverse' ? w.inverse() : w
-    }) as [Permutation, Permutation]
+    const [u, v] = expr.factors.map(f => meantPermutation(permutationOf((f as Extract<Expr, { type: 'schubert' }>).perm), env.conventions)) as [Permutation, Permutation]
     return schubertProduct(u, v, env.meter)
   }
   return schubertExpansion(toPolynomial(evaluate(expr, env)), { budget: env.meter })

@@ -25,7 +25,7 @@ import type { ConventionSet } from '../types/conventions'
 import type { ClaimCorrection, ClaimDiff, Report, ReportClaim } from '../types/report'
 import { CLAIM_BUDGET } from './claim'
 import { compareSides, schubertTermLatex, schurTermLatex, writtenSchubertCombination } from './compare'
-import { evaluate, type EngineMemo, type EvaluationEnv } from './evaluate'
+import { evaluate, meantPermutation, type EngineMemo, type EvaluationEnv } from './evaluate'
 import { toPolynomial } from './values'
 import { CONTEXT_LINES } from './correction-patch'
 
@@ -364,12 +364,8 @@ function objectText(term: string, basis: 'schubert' | 'schur', read: readonly Re
   }
   const m = /^\\mathfrak\{S\}_\{(\d+)\}$/.exec(term)
   if (!m) return none('a missing permutation has more than nine letters')
-  let entries = [...m[1]!].map(Number)
-  if (conventions.indexing === 'perm-inverse') {
-    const inverse = new Array<number>(entries.length)
-    entries.forEach((v, i) => { inverse[v - 1] = i + 1 })
-    entries = inverse
-  }
+  // The difference names the engine's permutation; the paper writes the one it stands for.
+  const entries = meantPermutation(Permutation.fromOneLine([...m[1]!].map(Number)), conventions).oneLine.slice()
   while (entries.length < template.length) entries.push(entries.length + 1)
   return `${template.pre}${entries.join('')}${template.post}`
 }

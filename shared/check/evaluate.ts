@@ -67,9 +67,18 @@ export function permutationOf(spec: PermutationSpec): Permutation {
   }
 }
 
+/**
+ * The permutation a written one stands for under the paper's indexing: its inverse under
+ * 'perm-inverse'. An involution, so the same map takes the engine's permutation back to the
+ * paper's. The one place the convention is applied to a permutation.
+ * e.g. `meantPermutation(Permutation.parse('231'), { indexing: 'perm-inverse' })` is 312.
+ */
+export function meantPermutation(w: Permutation, conventions: Pick<ConventionSet, 'indexing'>): Permutation {
+  return conventions.indexing === 'perm-inverse' ? w.inverse() : w
+}
+
 function permutationIn(spec: PermutationSpec, env: EvaluationEnv): Permutation {
-  const w = permutationOf(spec)
-  return env.conventions.indexing === 'perm-inverse' ? w.inverse() : w
+  return meantPermutation(permutationOf(spec), env.conventions)
 }
 
 function partitionIn(parts: readonly number[], env: EvaluationEnv): number[] {

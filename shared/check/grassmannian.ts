@@ -21,7 +21,7 @@ import type { Expr, GrassmannianSetting } from '../types/claims'
 import type { ClaimDiff, DiffTerm, DiffWrongCoefficient } from '../types/report'
 import { DIFF_LIMIT } from '../types/report'
 import {
-  addChecked, grassmannianDegree, grassmannianMultiply, inGrassmannianBox, mulChecked, negateCoefficient, partitionFromKey, partitionKey,
+  accumulate, addCombinations, grassmannianDegree, grassmannianMultiply, inGrassmannianBox, mulChecked, negateCoefficient, partitionFromKey, partitionKey,
   quantumEntries, quantumKey, quantumMultiply, schurCoproduct, skewSchurExpansion, toCoefficient, toPartition, absCoefficient,
   type Coefficient, type QuantumCombination, type SchurCombination,
 } from '../math'
@@ -159,15 +159,6 @@ function schurCombinationIn(schur: SchurCombination, s: GrassmannianSetting): Qu
   return out
 }
 
-function add(a: QuantumCombination, b: QuantumCombination, sign: 1 | -1 = 1): QuantumCombination {
-  const out = new Map(a)
-  for (const [key, c] of b) {
-    const v = addChecked(out.get(key) ?? 0, sign > 0 ? c : negateCoefficient(c))
-    if (v === 0) out.delete(key)
-    else out.set(key, v)
-  }
-  return out
-}
 
 function multiply(a: QuantumCombination, b: QuantumCombination, s: GrassmannianSetting, env: EvaluationEnv): QuantumCombination {
   if (a.size === 0 || b.size === 0) return new Map()
@@ -188,8 +179,8 @@ function classValue(expr: Expr, s: GrassmannianSetting, env: EvaluationEnv, note
   env.meter.step()
   switch (expr.type) {
     case 'integer': return constant(toCoefficient(BigInt(expr.value)))
-    case 'add': return expr.terms.reduce<QuantumCombination>((acc, t) => add(acc, classValue(t, s, env, notes)), new Map())
-    case 'negate': return add(new Map(), classValue(expr.arg, s, env, notes), -1)
+    case 'add': return expr.terms.reduce<QuantumCombination>((acc, t) => addCombinations(acc, classValue(t, s, env, notes)), new Map())
+    case 'negate': return addCombinations(new Map(), classValue(expr.arg, s, env, notes), -1)
     case 'multiply': return expr.factors.reduce<QuantumCombination>((acc, f) => multiply(acc, classValue(f, s, env, notes), s, env), ONE())
     case 'power': {
       if (expr.exponent < 0) throw new UnsupportedClaimError('negative powers of classes are not read')
@@ -234,7 +225,7 @@ function determinantIn(m: QuantumCombination[][], s: GrassmannianSetting, env: E
   const used = new Array<boolean>(size).fill(false)
   const rec = (row: number, sign: 1 | -1, acc: QuantumCombination): void => {
     if (acc.size === 0) return
-    if (row === size) { out = add(out, acc, sign); return }
+    if (row === size) { out = addCombinations(out, acc, sign); return }
     let passed = 0
     for (let col = size - 1; col >= 0; col--) {
       if (used[col]) { passed++; continue }
@@ -256,11 +247,6 @@ function symmetricValue(expr: Expr, env: EvaluationEnv): SchurCombination {
   throw new UnsupportedClaimError('⊗ and Δ are read of symmetric functions written without variables')
 }
 
-function addTensor(out: Map<string, Coefficient>, key: string, c: Coefficient): void {
-  const v = addChecked(out.get(key) ?? 0, c)
-  if (v === 0) out.delete(key)
-  else out.set(key, v)
-}
 
 /** The value of one side in Λ ⊗ Λ. */
 function tensorValue(expr: Expr, env: EvaluationEnv): Map<string, Coefficient> {
@@ -272,7 +258,7 @@ function tensorValue(expr: Expr, env: EvaluationEnv): Map<string, Coefficient> {
     }
     case 'add': {
       const out = new Map<string, Coefficient>()
-      for (const t of expr.terms) for (const [key, c] of tensorValue(t, env)) addTensor(out, key, c)
+      for (const t of expr.terms) for (const [key, c] of tensorValue(t, env)) accumulate(out, key, c)
       return out
     }
     case 'negate': {
@@ -290,7 +276,7 @@ function tensorValue(expr: Expr, env: EvaluationEnv): Map<string, Coefficient> {
         else throw new UnsupportedClaimError('products in Λ ⊗ Λ are not read; write the terms s_μ ⊗ s_ν')
       }
       const out = new Map<string, Coefficient>()
-      for (const [key, c] of tensor ?? new Map([[tensorKey([], []), 1]])) addTensor(out, key, mulChecked(scalar, c))
+      for (const [key, c] of tensor ?? new Map([[tensorKey([], []), 1]])) accumulate(out, key, mulChecked(scalar, c))
       return out
     }
     case 'tensor': {
@@ -298,13 +284,13 @@ function tensorValue(expr: Expr, env: EvaluationEnv): Map<string, Coefficient> {
       const out = new Map<string, Coefficient>()
       const left = symmetricValue(expr.left, env)
       const right = symmetricValue(expr.right, env)
-      for (const [a, ca] of left) for (const [b, cb] of right) addTensor(out, `${a}⊗${b}`, mulChecked(ca, cb))
+      for (const [a, ca] of left) for (const [b, cb] of right) accumulate(out, `${a}⊗${b}`, mulChecked(ca, cb))
       return out
     }
     case 'coproduct': {
       const out = new Map<string, Coefficient>()
       for (const [key, c] of symmetricValue(expr.arg, env)) {
-        for (const t of schurCoproduct(partitionFromKey(key), { budget: env.meter })) addTensor(out, tensorKey(t.left, t.right), mulChecked(c, t.coefficient))
+        for (const t of schurCoproduct(partitionFromKey(key), { budget: env.meter })) accumulate(out, tensorKey(t.left, t.right), mulChecked(c, t.coefficient))
       }
       return out
     }

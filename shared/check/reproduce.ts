@@ -20,7 +20,7 @@
 import type { EqualityQuestion, Expr, PermutationSpec } from '../types/claims'
 import type { ConventionSet } from '../types/conventions'
 import type { ReproduceLibrary, ReproduceSnippet } from '../types/report'
-import { permutationOf } from './evaluate'
+import { meantPermutation, permutationOf } from './evaluate'
 
 export { reproduceScript } from './reproduce-script'
 
@@ -274,8 +274,7 @@ function productOverParts(name: string, parts: readonly number[], n: number): st
 }
 
 function oneLine(spec: PermutationSpec, context: WriteContext): string {
-  const w = permutationOf(spec)
-  const meant = context.conventions.indexing === 'perm-inverse' ? w.inverse() : w
+  const meant = meantPermutation(permutationOf(spec), context.conventions)
   return `[${meant.oneLine.join(', ')}]`
 }
 

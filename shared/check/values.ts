@@ -12,7 +12,7 @@
  *   Numbers and polynomials promote to it when they meet one.
  */
 import {
-  multiplySchurCombinations, partitionKey, Polynomial, addChecked, negateCoefficient, toCoefficient, ParametricPolynomial, BETA,
+  addCombinations, multiplySchurCombinations, partitionKey, Polynomial, toCoefficient, ParametricPolynomial, BETA,
   type BudgetMeter, type SchurCombination,
 } from '../math'
 import { addTerms, liftPolynomial, liftSymmetric, multiplyTerms, negateTerms, polynomialPart, type BackStableTerms } from './back-stable'
@@ -169,7 +169,7 @@ export function addValues(a: Value, b: Value): Value {
   switch (combine(a, b)) {
     case 'number': return numberValue((a as { value: bigint }).value + (b as { value: bigint }).value)
     case 'polynomial': return { kind: 'polynomial', poly: toPolynomial(a).add(toPolynomial(b)) }
-    case 'symmetric': return { kind: 'symmetric', schur: addSchur(toSymmetric(a), toSymmetric(b), 1) }
+    case 'symmetric': return { kind: 'symmetric', schur: addCombinations(toSymmetric(a), toSymmetric(b), 1) }
     case 'parametric': return addParametric(toParametric(a, b), toParametric(b, a))
     case 'backStable': return { kind: 'backStable', terms: addTerms(toBackStable(a), toBackStable(b)) }
   }
@@ -180,7 +180,7 @@ export function negateValue(a: Value): Value {
   if (a.kind === 'polynomial') return { kind: 'polynomial', poly: a.poly.neg() }
   if (a.kind === 'parametric') return { ...a, poly: a.poly.neg() }
   if (a.kind === 'backStable') return { kind: 'backStable', terms: negateTerms(a.terms) }
-  return { kind: 'symmetric', schur: addSchur(new Map(), a.schur, -1) }
+  return { kind: 'symmetric', schur: addCombinations(new Map(), a.schur, -1) }
 }
 
 export function multiplyValues(a: Value, b: Value, meter: BudgetMeter): Value {
@@ -200,12 +200,3 @@ export function powerValue(a: Value, exponent: number, meter: BudgetMeter): Valu
   return result
 }
 
-function addSchur(a: SchurCombination, b: SchurCombination, sign: 1 | -1): SchurCombination {
-  const out = new Map(a)
-  for (const [key, c] of b) {
-    const next = addChecked(out.get(key) ?? 0, sign > 0 ? c : negateCoefficient(c))
-    if (next === 0) out.delete(key)
-    else out.set(key, next)
-  }
-  return out
-}

@@ -20,7 +20,6 @@
  *   can use that identity (no listing) or count by a row-transfer walk that stores nothing.
  */
 import { Permutation } from './permutation'
-import { Polynomial } from './polynomial'
 import { schubertAtOnes } from './schubert'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 
@@ -129,25 +128,3 @@ export function countBumplessPipeDreams(w: Permutation, options: { method?: 'ide
   return count
 }
 
-/** S_w(x; y) = Σ over BPDs of ∏ over blanks (x_i − y_j); `double: false` gives S_w(x). */
-export function schubertFromBumpless(w: Permutation, options: { double?: boolean; budget?: Budget | BudgetMeter } = {}): Polynomial {
-  const meter = toMeter(options.budget)
-  const factor = new Map<string, Polynomial>()
-  let total = Polynomial.zero()
-  walkBumpless(w, meter, tiles => {
-    let p = Polynomial.one()
-    tiles.forEach((r, i) => r.forEach((tile, j) => {
-      if (tile !== 'blank') return
-      const key = `${i + 1},${j + 1}`
-      let f = factor.get(key)
-      if (!f) {
-        f = options.double ? Polynomial.x(i + 1).sub(Polynomial.y(j + 1)) : Polynomial.x(i + 1)
-        factor.set(key, f)
-      }
-      p = p.mul(f, meter)
-    }))
-    total = total.add(p)
-    meter.terms(total.size)
-  })
-  return total
-}

@@ -61,3 +61,27 @@ export function assertSafeInteger(c: number): void {
 export function toCoefficient(c: number | bigint): Coefficient {
   return normalizeCoefficient(c)
 }
+
+/**
+ * Adds c into acc[key] and keeps the map canonical: an entry that cancels is deleted, a zero is
+ * never stored. The one way the engine and the check core sum into a combination or a term map.
+ * e.g. `accumulate(m, '231', 1)` then `accumulate(m, '231', -1)` leaves no '231' in m.
+ */
+export function accumulate<K>(acc: Map<K, Coefficient>, key: K, c: Coefficient): void {
+  const old = acc.get(key)
+  if (old === undefined) {
+    if (c !== 0) acc.set(key, c)
+  }
+  else {
+    const v = addChecked(old, c)
+    if (v === 0) acc.delete(key)
+    else acc.set(key, v)
+  }
+}
+
+/** a + sign · b as a new map, canonical as `accumulate` keeps it; e.g. `addCombinations(m, m, -1).size === 0`. */
+export function addCombinations<K>(a: ReadonlyMap<K, Coefficient>, b: ReadonlyMap<K, Coefficient>, sign: 1 | -1 = 1): Map<K, Coefficient> {
+  const out = new Map(a)
+  for (const [key, c] of b) accumulate(out, key, sign > 0 ? c : negateCoefficient(c))
+  return out
+}

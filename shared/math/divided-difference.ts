@@ -10,8 +10,8 @@
  * - For a word a_1…a_k, ∂_{a_1…a_k} = ∂_{a_1} ∘ ⋯ ∘ ∂_{a_k}; ∂_w for a reduced word of w
  *   does not depend on the word chosen.
  */
-import { negateCoefficient, type Coefficient } from './coefficient'
-import { Polynomial, accumulate, decodeMonomial, encodeMonomial } from './polynomial'
+import { accumulate, negateCoefficient, type Coefficient } from './coefficient'
+import { Polynomial, decodeMonomial, encodeMonomial } from './polynomial'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 import { InvalidArgumentError } from './errors'
 

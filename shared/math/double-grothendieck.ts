@@ -25,12 +25,12 @@
  * - Products: G^β_u G^β_v = Σ_w c^w_{uv}(β) G^β_w (single, y = 0), c^w_{uv}(β) = c^w_{uv}(1) β^{ℓ(w)−ℓ(u)−ℓ(v)}.
  */
 import { Permutation } from './permutation'
-import { Polynomial, accumulate, decodeMonomial, encodeMonomial } from './polynomial'
+import { Polynomial, decodeMonomial, encodeMonomial } from './polynomial'
 import { grothendieckOperator } from './divided-difference'
 import { grothendieckPolynomial } from './grothendieck'
 import { climbToDominant, doubleSchubertPolynomial } from './schubert'
 import { schubertExpansion, type SchubertCombination } from './schubert-basis'
-import { addChecked, mulChecked, negateCoefficient, type Coefficient } from './coefficient'
+import { accumulate, mulChecked, negateCoefficient, type Coefficient } from './coefficient'
 import { InvalidArgumentError, NotInSpanError } from './errors'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 
@@ -217,9 +217,7 @@ export function grothendieckExpansion(f: Polynomial, beta = -1, options: { maxDe
     const low = rest.lowestDegreePart()
     if (low.degree() > cap) throw new NotInSpanError(`the Grothendieck expansion does not end below degree ${cap}`)
     for (const [key, c] of schubertExpansion(low, { budget: meter })) {
-      const total = addChecked(out.get(key) ?? 0, c)
-      if (total === 0) out.delete(key)
-      else out.set(key, total)
+      accumulate(out, key, c)
       const w = permutationFromKey(key)
       rest = rest.sub(grothendieckPolynomial(w, beta, meter).scale(c))
     }

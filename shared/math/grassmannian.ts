@@ -26,7 +26,7 @@
  */
 import { type Partition, type SchurCombination, partitionKey, partitionFromKey, toPartition, schurProduct } from './symmetric'
 import { InvalidArgumentError } from './errors'
-import { addChecked, mulChecked, negateCoefficient, type Coefficient } from './coefficient'
+import { accumulate, mulChecked, negateCoefficient, type Coefficient } from './coefficient'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 
 export type QuantumCombination = Map<string, Coefficient>
@@ -57,11 +57,6 @@ function boxPartition(lambda: readonly number[], k: number, n: number): Partitio
   return lam
 }
 
-function addInto(out: Map<string, Coefficient>, key: string, c: Coefficient): void {
-  const v = addChecked(out.get(key) ?? 0, c)
-  if (v === 0) out.delete(key)
-  else out.set(key, v)
-}
 
 /** σ_λ · σ_μ in H*(Gr(k,n)); e.g. σ_1 · σ_1 = σ_2 + σ_{11} on Gr(2,4). */
 export function grassmannianProduct(lambda: readonly number[], mu: readonly number[], k: number, n: number, budget?: Budget | BudgetMeter): SchurCombination {
@@ -79,7 +74,7 @@ export function grassmannianMultiply(a: SchurCombination, b: SchurCombination, k
   const meter = toMeter(budget)
   const out: SchurCombination = new Map()
   for (const [ka, ca] of a) for (const [kb, cb] of b) {
-    for (const [key, c] of grassmannianProduct(partitionFromKey(ka), partitionFromKey(kb), k, n, meter)) addInto(out, key, mulChecked(mulChecked(ca, cb), c))
+    for (const [key, c] of grassmannianProduct(partitionFromKey(ka), partitionFromKey(kb), k, n, meter)) accumulate(out, key, mulChecked(mulChecked(ca, cb), c))
     meter.terms(out.size, 'classes')
   }
   return out
@@ -119,7 +114,7 @@ export function giambelliDeterminant(lambda: readonly number[], k: number, n: nu
   const used = new Array<boolean>(l).fill(false)
   const rec = (i: number, sign: number, acc: SchurCombination): void => {
     if (acc.size === 0) return
-    if (i === l) { for (const [key, c] of acc) addInto(out, key, sign > 0 ? c : negateCoefficient(c)); return }
+    if (i === l) { for (const [key, c] of acc) accumulate(out, key, sign > 0 ? c : negateCoefficient(c)); return }
     let inversions = 0
     for (let j = l - 1; j >= 0; j--) {
       if (used[j]) { inversions++; continue }
@@ -226,7 +221,7 @@ export function quantumProduct(lambda: readonly number[], mu: readonly number[],
   const out: QuantumCombination = new Map()
   for (const [key, c] of schurProduct(lam, m, { maxRows: k, budget })) {
     const r = rimHookReduce(partitionFromKey(key), k, n)
-    if (r) addInto(out, quantumKey(r.qDegree, r.partition), r.sign > 0 ? c : negateCoefficient(c))
+    if (r) accumulate(out, quantumKey(r.qDegree, r.partition), r.sign > 0 ? c : negateCoefficient(c))
   }
   return out
 }
@@ -237,7 +232,7 @@ export function quantumMultiply(a: QuantumCombination, b: QuantumCombination, k:
   const out: QuantumCombination = new Map()
   for (const s of quantumEntries(a)) for (const t of quantumEntries(b)) {
     for (const u of quantumEntries(quantumProduct(s.partition, t.partition, k, n, meter))) {
-      addInto(out, quantumKey(s.qDegree + t.qDegree + u.qDegree, u.partition), mulChecked(mulChecked(s.coefficient, t.coefficient), u.coefficient))
+      accumulate(out, quantumKey(s.qDegree + t.qDegree + u.qDegree, u.partition), mulChecked(mulChecked(s.coefficient, t.coefficient), u.coefficient))
     }
     meter.terms(out.size, 'classes')
   }

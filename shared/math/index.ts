@@ -19,7 +19,6 @@ export {
   schubertPolynomial,
   doubleSchubertPolynomial,
   SchubertFamily,
-  schubertByTransition,
   schubertAtOnes,
   schubertInvariants,
 } from './schubert'
@@ -38,7 +37,6 @@ export {
   transitionDagSize,
   monkProduct,
   structureConstant,
-  schubertProductByExpansion,
   type DoubleSchubertCombination,
   doubleSchubertExpansion,
   doubleSchubertProduct,

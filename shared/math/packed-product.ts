@@ -17,7 +17,7 @@
  * open-addressing table. Coefficients are floats that stay exact while safe; a sum leaving the
  * safe range stops this path (PackedRangeExceeded) and the caller redoes the product exactly.
  */
-import type { Permutation } from './permutation'
+import { trimFixedPoints, type Permutation } from './permutation'
 import type { BudgetMeter } from './budget'
 import type { Coefficient } from './coefficient'
 import { transitionStep } from './schubert'
@@ -228,10 +228,8 @@ export function packedTransitionProduct(u: Permutation, v: Permutation, keys: Pa
   // First pass: how many times each node of the transition recursion is used, so that an
   // intermediate combination is dropped as soon as its last user has read it (keeps memory low).
   const uses = new Map<string, number>()
-  const keyOf = (line: readonly number[]): { key: string; trimmed: number[] } => {
-    let n = line.length
-    while (n > 0 && line[n - 1] === n) n--
-    const trimmed = line.slice(0, n)
+  const keyOf = (line: readonly number[]): { key: string; trimmed: readonly number[] } => {
+    const trimmed = trimFixedPoints(line)
     return { key: trimmed.join(','), trimmed }
   }
   const visit = (line: readonly number[]): void => {
@@ -296,9 +294,7 @@ export function packedTransitionProduct(u: Permutation, v: Permutation, keys: Pa
     }
     for (let a = 1; a <= max; a++) if (!used[a]) line.push(a)
     for (let i = 0; i < D; i++) used[line[i]!] = 0
-    let n = line.length
-    while (n > 0 && line[n - 1] === n) n--
-    out.set(line.slice(0, n).join(','), top.coefficients[t]!)
+    out.set(trimFixedPoints(line).join(','), top.coefficients[t]!)
   }
   return out
 }

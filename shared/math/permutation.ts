@@ -25,6 +25,16 @@ export type PermutationSpec =
   | { word: readonly number[]; size?: number }
   | { longest: number }
 
+/**
+ * A one-line notation without its trailing fixed points: the same element of S_∞, in its shortest
+ * form (the array itself when there is nothing to trim). e.g. `trimFixedPoints([2, 1, 3, 4])` is [2, 1].
+ */
+export function trimFixedPoints(line: readonly number[]): readonly number[] {
+  let n = line.length
+  while (n > 0 && line[n - 1] === n) n--
+  return n === line.length ? line : line.slice(0, n)
+}
+
 /** An element of S_n (and, by embedding, of S_∞). Immutable. */
 export class Permutation {
   /** One-line notation, 1-based values: oneLine[i-1] = w(i). */
@@ -156,9 +166,8 @@ export class Permutation {
 
   /** The same element of S_∞ with trailing fixed points removed. */
   trimmed(): Permutation {
-    let n = this.oneLine.length
-    while (n > 0 && this.oneLine[n - 1] === n) n--
-    return n === this.oneLine.length ? this : new Permutation(this.oneLine.slice(0, n))
+    const line = trimFixedPoints(this.oneLine)
+    return line === this.oneLine ? this : new Permutation(line.slice())
   }
 
   /** Image under S_n ⊂ S_m (m ≥ n); e.g. `fromOneLine([2,1]).embed(4)` is 2134. */

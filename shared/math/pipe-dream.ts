@@ -16,7 +16,6 @@
  *   transition recursion without listing them.
  */
 import { Permutation } from './permutation'
-import { Polynomial } from './polynomial'
 import { schubertAtOnes } from './schubert'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 
@@ -92,24 +91,3 @@ export function countPipeDreams(w: Permutation, budget?: Budget | BudgetMeter): 
   return schubertAtOnes(w, budget)
 }
 
-/** S_w(x; y) = Σ over reduced pipe dreams of ∏ over crosses (x_i − y_j); `double: false` gives S_w(x). */
-export function schubertFromPipeDreams(w: Permutation, options: { double?: boolean; budget?: Budget | BudgetMeter } = {}): Polynomial {
-  const meter = toMeter(options.budget)
-  const terms = new Map<string, Polynomial>()
-  let total = Polynomial.zero()
-  for (const pd of pipeDreams(w, meter)) {
-    let p = Polynomial.one()
-    for (const [i, j] of pd.crosses) {
-      const key = `${i},${j}`
-      let f = terms.get(key)
-      if (!f) {
-        f = options.double ? Polynomial.x(i).sub(Polynomial.y(j)) : Polynomial.x(i)
-        terms.set(key, f)
-      }
-      p = p.mul(f, meter)
-    }
-    total = total.add(p)
-    meter.terms(total.size)
-  }
-  return total
-}

@@ -16,7 +16,7 @@
  *   x-exponent vectors lexicographically descending (x_1 first), then the
  *   y-exponent vectors likewise. E.g. `x_{1}^{2}x_{2} + x_{1}x_{3} + x_{2}^{2}`.
  */
-import { addChecked, mulChecked, negateCoefficient, absCoefficient, toCoefficient, type Coefficient } from './coefficient'
+import { accumulate, mulChecked, negateCoefficient, absCoefficient, toCoefficient, type Coefficient } from './coefficient'
 import { InvalidArgumentError } from './errors'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 
@@ -423,17 +423,6 @@ export function polynomialDifference(expected: Polynomial, actual: Polynomial): 
   }
 }
 
-/** Add c into acc[key], deleting the entry when it cancels. */
-export function accumulate(acc: Map<string, Coefficient>, key: string, c: Coefficient): void {
-  const old = acc.get(key)
-  if (old === undefined) {
-    if (c !== 0) acc.set(key, c)
-  } else {
-    const v = addChecked(old, c)
-    if (v === 0) acc.delete(key)
-    else acc.set(key, v)
-  }
-}
 
 function keyDegree(k: string): number {
   let d = 0

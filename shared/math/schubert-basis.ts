@@ -14,11 +14,11 @@
  *   (a consequence of Monk's rule, as x_r = S_{s_r} − S_{s_{r−1}}).
  * - Monk's rule: S_{s_r} S_w = Σ_{j ≤ r < k, ℓ(w t_{jk}) = ℓ(w)+1} S_{w t_{jk}}.
  */
-import { Permutation } from './permutation'
-import { Polynomial, accumulate, decodeMonomial, encodeMonomial } from './polynomial'
+import { Permutation, trimFixedPoints } from './permutation'
+import { Polynomial, decodeMonomial, encodeMonomial } from './polynomial'
 import { doubleSchubertPolynomial, packedSchubert, schubertPolynomial, transitionStep } from './schubert'
 import { NotInSpanError } from './errors'
-import { addChecked, mulChecked, negateCoefficient, type Coefficient } from './coefficient'
+import { accumulate, addChecked, mulChecked, negateCoefficient, type Coefficient } from './coefficient'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 import { PackedRangeExceeded, packedKeys, packedTransitionProduct } from './packed-product'
 
@@ -153,15 +153,6 @@ function fromInternal(k: string): string {
   return vals.join(',')
 }
 
-function addTo(m: Map<string, Coefficient>, k: string, c: Coefficient): void {
-  const old = m.get(k)
-  if (old === undefined) m.set(k, c)
-  else {
-    const v = addChecked(old, c)
-    if (v === 0) m.delete(k)
-    else m.set(k, v)
-  }
-}
 
 /** x_r · Σ c_w S_w, as a combination (internal keys). */
 function multiplyByVariable(r: number, comb: Map<string, Coefficient>, meter: BudgetMeter): Map<string, Coefficient> {
@@ -177,7 +168,7 @@ function multiplyByVariable(r: number, comb: Map<string, Coefficient>, meter: Bu
       const wk = at(k)
       if (wk > wr && wk < m) {
         m = wk
-        addTo(out, swapKey(key, r, k), c)
+        accumulate(out, swapKey(key, r, k), c)
       }
     }
     // Down-moves t_{qr}, q < r: w(q) < w(r) with no value between in (w(q), w(r)).
@@ -186,7 +177,7 @@ function multiplyByVariable(r: number, comb: Map<string, Coefficient>, meter: Bu
       const wq = at(q)
       if (wq < wr && wq > M) {
         M = wq
-        addTo(out, swapKey(key, q, r), negateCoefficient(c))
+        accumulate(out, swapKey(key, q, r), negateCoefficient(c))
       }
     }
     meter.step(top)
@@ -265,7 +256,7 @@ function horner(monos: Mono[], order: readonly number[], depth: number, base: Ma
     const g = groups.get(a)
     if (g) {
       const part = horner(g, order, depth + 1, base, meter)
-      for (const [k, c] of part) addTo(acc, k, c)
+      for (const [k, c] of part) accumulate(acc, k, c)
     }
   }
   return acc
@@ -291,12 +282,6 @@ export function structureConstant(u: Permutation, v: Permutation, w: Permutation
   return schubertProduct(u, v, budget).get(w.key) ?? 0
 }
 
-/** S_u · S_v by expanding the product polynomial (slow, independent path used as a cross-check). */
-export function schubertProductByExpansion(u: Permutation, v: Permutation, budget?: Budget | BudgetMeter): SchubertCombination {
-  const meter = toMeter(budget)
-  return schubertExpansion(schubertPolynomial(u, meter).mul(schubertPolynomial(v, meter), meter), { budget: meter })
-}
-
 /**
  * S_u · S_v by the transition recursion on u (memoised), multiplying by x_r with the Monk-derived rule.
  * Route 'packed' (the default when the keys fit, see packed-product.ts) holds combinations in
@@ -317,17 +302,16 @@ export function schubertProductByTransition(u: Permutation, v: Permutation, budg
   const memo = new Map<string, Map<string, Coefficient>>()
   const base = new Map<string, Coefficient>([[toInternal(v), 1]])
   const go = (line: number[]): Map<string, Coefficient> => {
-    let n = line.length
-    while (n > 0 && line[n - 1] === n) n--
-    const key = line.slice(0, n).join(',')
+    const trimmed = trimFixedPoints(line)
+    const key = trimmed.join(',')
     const hit = memo.get(key)
     if (hit) return hit
-    const step = transitionStep(line.slice(0, n))
+    const step = transitionStep(trimmed)
     let result: Map<string, Coefficient>
     if (!step) result = base
     else {
       result = multiplyByVariable(step.r, go(step.v), meter)
-      for (const o of step.others) for (const [k, c] of go(o)) addTo(result, k, c)
+      for (const o of step.others) for (const [k, c] of go(o)) accumulate(result, k, c)
     }
     meter.step()
     memo.set(key, result)
@@ -343,13 +327,11 @@ export function transitionDagSize(w: Permutation, limit = 1e6): number {
   const seen = new Set<string>()
   const stack = [w.oneLine.slice()]
   while (stack.length > 0 && seen.size < limit) {
-    const line = stack.pop()!
-    let n = line.length
-    while (n > 0 && line[n - 1] === n) n--
-    const key = line.slice(0, n).join(',')
+    const trimmed = trimFixedPoints(stack.pop()!)
+    const key = trimmed.join(',')
     if (seen.has(key)) continue
     seen.add(key)
-    const step = transitionStep(line.slice(0, n))
+    const step = transitionStep(trimmed)
     if (step) { stack.push(step.v); for (const o of step.others) stack.push(o) }
   }
   return seen.size

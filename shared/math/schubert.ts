@@ -17,7 +17,7 @@
  *   It also gives S_w(1, …, 1) (= number of reduced pipe dreams) without expansion.
  * - Pipe-dream and bumpless formulas live in pipe-dream.ts and bumpless.ts.
  */
-import { Permutation } from './permutation'
+import { Permutation, trimFixedPoints } from './permutation'
 import { Polynomial, productOf } from './polynomial'
 import { dividedDifference } from './divided-difference'
 import { PACKED_MAX_N, PackedContext, type PackedPolynomial } from './packed'
@@ -166,35 +166,12 @@ export class SchubertFamily {
   }
 }
 
-/** S_w by the transition formula (Algorithm B), memoised; independent of divided differences. */
-export function schubertByTransition(w: Permutation, budget?: Budget | BudgetMeter): Polynomial {
-  const meter = toMeter(budget)
-  const memo = new Map<string, Polynomial>()
-  const go = (line: number[]): Polynomial => {
-    const key = trimmedKey(line)
-    const hit = memo.get(key)
-    if (hit) return hit
-    meter.step()
-    const step = transitionStep(line)
-    let result: Polynomial
-    if (!step) result = Polynomial.one()
-    else {
-      result = go(step.v).mul(Polynomial.x(step.r), meter)
-      for (const u of step.others) result = result.add(go(u))
-    }
-    memo.set(key, result)
-    meter.terms(result.size)
-    return result
-  }
-  return go(w.oneLine.slice())
-}
-
 /** S_w(1, …, 1), the number of reduced pipe dreams of w, by the transition recursion (no expansion). */
 export function schubertAtOnes(w: Permutation, budget?: Budget | BudgetMeter): bigint {
   const meter = toMeter(budget)
   const memo = new Map<string, bigint>()
   const go = (line: number[]): bigint => {
-    const key = trimmedKey(line)
+    const key = trimFixedPoints(line).join(',')
     const hit = memo.get(key)
     if (hit !== undefined) return hit
     meter.step()
@@ -219,12 +196,6 @@ export function schubertInvariants(w: Permutation, budget?: Budget | BudgetMeter
 } {
   const d = w.descents()
   return { degree: w.length(), valueAtOnes: schubertAtOnes(w, budget), lastVariable: d.length ? d[d.length - 1]! : 0 }
-}
-
-function trimmedKey(line: readonly number[]): string {
-  let n = line.length
-  while (n > 0 && line[n - 1] === n) n--
-  return line.slice(0, n).join(',')
 }
 
 /** One step of the transition recursion, or undefined for the identity. */

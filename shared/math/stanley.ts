@@ -15,10 +15,10 @@
  * - With our word convention (w = s_{a_1}⋯s_{a_ℓ}), F_{w⁻¹} = ω F_w and
  *   Σ_λ a_{wλ} f^λ = #reduced words of w.
  */
-import { Permutation, isGrassmannian } from './permutation'
+import { Permutation, isGrassmannian, trimFixedPoints } from './permutation'
 import { schubertPolynomial, transitionStep } from './schubert'
 import { partitionKey, schurExpansion, type SchurCombination } from './symmetric'
-import { addChecked } from './coefficient'
+import { accumulate } from './coefficient'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 
 /** F_w in the Schur basis; e.g. F_{21} = s_1, F_{2143} = s_2 + s_{11}. */
@@ -34,9 +34,7 @@ export function stanleySymmetricFunction(
   }
   const memo = new Map<string, SchurCombination>()
   const go = (line: number[]): SchurCombination => {
-    let n = line.length
-    while (n > 0 && line[n - 1] === n) n--
-    const trimmed = line.slice(0, n)
+    const trimmed = trimFixedPoints(line)
     // F is invariant under the shift 1 × w, so key on the shift-normal form too.
     let lead = 0
     while (lead < trimmed.length && trimmed[lead] === lead + 1) lead++
@@ -53,7 +51,7 @@ export function stanleySymmetricFunction(
       const step = transitionStep(normal)!
       result = new Map()
       const add = (c: SchurCombination): void => {
-        for (const [k, v] of c) result.set(k, addChecked(result.get(k) ?? 0, v))
+        for (const [k, v] of c) accumulate(result, k, v)
       }
       for (const child of step.others) add(go(child))
       const vr = step.v[step.r - 1]!
@@ -67,7 +65,6 @@ export function stanleySymmetricFunction(
         shifted[step.r] = t
         add(go(shifted))
       }
-      for (const [k, v] of [...result]) if (v === 0) result.delete(k)
     }
     memo.set(key, result)
     meter.terms(memo.size, 'memoised permutations')

@@ -17,7 +17,7 @@
 import { compareLex, peelTriangular } from './triangular'
 import { Polynomial, encodeMonomial } from './polynomial'
 import { InvalidArgumentError, NotSymmetricError } from './errors'
-import { addChecked, mulChecked, type Coefficient } from './coefficient'
+import { accumulate, addChecked, mulChecked, type Coefficient } from './coefficient'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 
 export type Partition = number[]
@@ -272,9 +272,7 @@ export function multiplySchurCombinations(a: SchurCombination, b: SchurCombinati
   const out: SchurCombination = new Map()
   for (const [ka, ca] of a) for (const [kb, cb] of b) {
     for (const [k, c] of schurProduct(partitionFromKey(ka), partitionFromKey(kb), { budget: meter })) {
-      const v = addChecked(out.get(k) ?? 0, mulChecked(mulChecked(ca, cb), c))
-      if (v === 0) out.delete(k)
-      else out.set(k, v)
+      accumulate(out, k, mulChecked(mulChecked(ca, cb), c))
     }
   }
   return out

@@ -8,8 +8,8 @@
  * lexicographically largest monomial first) and key polynomials and Demazure atoms (key.ts, the
  * lexicographically smallest first) use it.
  */
-import { accumulate, decodeMonomial, type Polynomial } from './polynomial'
-import { mulChecked, negateCoefficient, type Coefficient } from './coefficient'
+import { decodeMonomial, type Polynomial } from './polynomial'
+import { accumulate, mulChecked, negateCoefficient, type Coefficient } from './coefficient'
 import type { BudgetMeter } from './budget'
 
 export interface TriangularBasis {

@@ -99,11 +99,12 @@ describe('who a re-check is for', () => {
     expect(audit).toEqual([{ action: 'manuscript.conventions-set', actor_id: owner.id }])
   })
 
-  it('params that are not UUIDs are refused as invalid input, not looked up', async () => {
+  // A malformed id names nothing: 404 as on every route (routeParamsAs), never looked up.
+  it('params that are not UUIDs are not found, not looked up', async () => {
     const me = await newMember('bad-id')
     const res = await me.client.get('/api/check-runs/not-a-uuid')
-    expect(res.status).toBe(400)
-    expect(res.body.data.code).toBe('invalid-input')
+    expect(res.status).toBe(404)
+    expect(res.body.data.code).toBe('not-found')
   })
 })
 

@@ -3,7 +3,7 @@ import { appendAudit } from '../../repositories/audit'
 
 
 export default defineEventHandler(async (event) => {
-  const { id } = await idParamsAs(event, 'id')
+  const { id } = await routeParamsAs(event, uuidParams('id'))
   const grant = await authorize(event, { manuscript: id, owner: true })
   const db = useDb()
   await db.transaction().execute(async (trx) => {

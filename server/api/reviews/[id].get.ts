@@ -4,7 +4,7 @@ import { revisionViews } from '../../services/views'
 
 /** A referee's view of one assigned submission: the submitted revision and its latest run. */
 export default defineEventHandler(async (event): Promise<ReviewView> => {
-  const { id } = await idParamsAs(event, 'id')
+  const { id } = await routeParamsAs(event, uuidParams('id'))
   const grant = await authorize(event, { refereeAssignment: id })
   const [revision] = await revisionViews(useDb(), grant.manuscriptId, grant.revisionId)
   if (!revision) fail(404, 'not-found', 'No such review')

@@ -6,7 +6,7 @@ const Query = z.object({ from: z.string().min(1).max(64), to: z.string().min(1).
 
 /** Compares two revisions' newest finished checks claim by claim: fixed, newly failing, still failing, unchanged, added, removed. */
 export default defineEventHandler(async (event): Promise<RevisionComparisonView> => {
-  const { id } = await idParamsAs(event, 'id')
+  const { id } = await routeParamsAs(event, uuidParams('id'))
   const grant = await authorize(event, { manuscript: id })
   const query = await queryAs(event, Query)
   return compareRevisions(useDb(), { id, title: grant.title }, query.from, query.to)

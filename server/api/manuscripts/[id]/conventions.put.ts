@@ -9,7 +9,7 @@ const Body = z.object({ conventions: ConventionChoices })
  * (convention-decisions), which every member accepts.
  */
 export default defineEventHandler(async (event) => {
-  const { id } = await routeParamsAs(event, IdParams)
+  const { id } = await routeParamsAs(event, uuidParams('id'))
   const grant = await authorize(event, { manuscript: id, owner: true })
   const { conventions } = await readBodyAs(event, Body)
   const result = await setManuscriptConventions(useDb(), await useQueue(), { manuscriptId: id, actorId: grant.user.id, conventions: conventions as Record<string, string> })

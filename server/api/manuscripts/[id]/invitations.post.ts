@@ -5,7 +5,7 @@ const Body = z.object({ email: z.string().trim().email('Enter a valid e-mail add
 
 /** The owner invites a coauthor by e-mail; the mail carries a single-use link. Coauthors get 403, strangers 404. */
 export default defineEventHandler(async (event) => {
-  const { id } = await idParamsAs(event, 'id')
+  const { id } = await routeParamsAs(event, uuidParams('id'))
   const grant = await authorize(event, { manuscript: id, owner: true })
   const { email } = await readBodyAs(event, Body)
   const invitation = await inviteCoauthor(useDb(), grant, email, publicBaseUrl())

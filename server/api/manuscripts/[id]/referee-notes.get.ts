@@ -7,7 +7,7 @@ import { listClaimNotes, listReleasedAssignmentsForManuscript } from '../../../r
  * submission); nothing here is read from a referee's user row, so no name or e-mail can leak.
  */
 export default defineEventHandler(async (event): Promise<ReleasedRefereeNotes[]> => {
-  const { id } = await idParamsAs(event, 'id')
+  const { id } = await routeParamsAs(event, uuidParams('id'))
   const grant = await authorize(event, { manuscript: id })
   const db = useDb()
   const released = await listReleasedAssignmentsForManuscript(db, grant.manuscriptId)

@@ -8,7 +8,7 @@ const Body = z.object({
 
 /** The referee adds a note on one claim of the submitted revision (until the notes are released). */
 export default defineEventHandler(async (event) => {
-  const { id } = await idParamsAs(event, 'id')
+  const { id } = await routeParamsAs(event, uuidParams('id'))
   const grant = await authorize(event, { refereeAssignment: id })
   const body = await readBodyAs(event, Body)
   const note = await addClaimNote(useDb(), grant, body.claimId, body.body)

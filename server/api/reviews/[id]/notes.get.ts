@@ -4,7 +4,7 @@ import { listClaimNotes, listClaimOptions } from '../../../repositories/referee-
 
 /** The referee's own notes on an assignment, and the claims they can be written on. */
 export default defineEventHandler(async (event): Promise<ReviewNotesView> => {
-  const { id } = await idParamsAs(event, 'id')
+  const { id } = await routeParamsAs(event, uuidParams('id'))
   const grant = await authorize(event, { refereeAssignment: id })
   const db = useDb()
   const [claimNotes, claims] = await Promise.all([listClaimNotes(db, [grant.assignmentId], grant.revisionId), listClaimOptions(db, grant.revisionId)])

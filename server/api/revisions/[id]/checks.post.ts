@@ -10,7 +10,7 @@ const Body = z.object({ conventions: ConventionChoices.optional() })
  * members' current report stays as it was.
  */
 export default defineEventHandler(async (event) => {
-  const { id } = await routeParamsAs(event, IdParams)
+  const { id } = await routeParamsAs(event, uuidParams('id'))
   const grant = await authorize(event, { revision: id })
   const body = await readBodyAs(event, Body)
   const conventions = { ...grant.conventions, ...body.conventions }

@@ -8,7 +8,7 @@ import { revisionComments } from '../../../services/discussion'
  * discussion, so the authors' private talk never reaches them (referee notes are elsewhere).
  */
 export default defineEventHandler(async (event): Promise<RevisionCommentsView> => {
-  const { id } = await idParamsAs(event, 'id')
+  const { id } = await routeParamsAs(event, uuidParams('id'))
   const grant = await authorize(event, { revision: id })
   if (grant.viewer !== 'member') fail(404, 'not-found', 'No such discussion')
   return revisionComments(useDb(), grant.manuscriptId, id)

@@ -10,7 +10,7 @@ const Body = z.object({
 
 /** A member comments on a claim of this revision's newest report, or replies in its thread. Members only (404 otherwise). */
 export default defineEventHandler(async (event) => {
-  const { id } = await idParamsAs(event, 'id')
+  const { id } = await routeParamsAs(event, uuidParams('id'))
   const grant = await authorize(event, { revision: id })
   if (grant.viewer !== 'member') fail(404, 'not-found', 'No such discussion')
   const body = await readBodyAs(event, Body)

@@ -15,7 +15,7 @@ const Query = z.object({ run: z.string().uuid().optional() })
  * The answer is written as JSON text here, so a cached report is not serialised again.
  */
 export default defineEventHandler(async (event): Promise<RevisionReportView | null> => {
-  const { id } = await routeParamsAs(event, IdParams)
+  const { id } = await routeParamsAs(event, uuidParams('id'))
   const { run: runId } = await queryAs(event, Query)
   const grant = await authorize(event, { revision: id })
   const db = useDb()

@@ -7,7 +7,7 @@ const Query = z.object({ path: z.string().min(1).max(1024) })
 
 /** One file of the revision with its text: the report page loads each file tab when it is opened. */
 export default defineEventHandler(async (event): Promise<SourceFileView> => {
-  const { id } = await routeParamsAs(event, IdParams)
+  const { id } = await routeParamsAs(event, uuidParams('id'))
   const { path } = await queryAs(event, Query)
   await authorize(event, { revision: id })
   const file = (await listRevisionFileKeys(useDb(), id)).find(f => f.path === path)

@@ -4,7 +4,7 @@ import { decodeText, isTextPath } from '../../../storage/source-text'
 
 /** Every file of the revision with its text (the report page loads one file at a time from `source`). */
 export default defineEventHandler(async (event): Promise<{ files: SourceFileView[] }> => {
-  const { id } = await routeParamsAs(event, IdParams)
+  const { id } = await routeParamsAs(event, uuidParams('id'))
   await authorize(event, { revision: id })
   const files = await listRevisionFileKeys(useDb(), id)
   return {

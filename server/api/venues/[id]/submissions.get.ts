@@ -19,7 +19,7 @@ const Query = z.object({
  * editors appoint them). Sorted, filtered and paged in the database.
  */
 export default defineEventHandler(async (event): Promise<VenueSubmissionsPage> => {
-  const { id } = await idParamsAs(event, 'id')
+  const { id } = await routeParamsAs(event, uuidParams('id'))
   await authorize(event, { venueEditor: id })
   const parsed = await getValidatedQuery(event, query => Query.safeParse(query))
   if (!parsed.success) fail(400, 'invalid-input', 'The request is not valid', { fields: Object.fromEntries(parsed.error.issues.map(i => [i.path.join('.') || '_', i.message])) })

@@ -4,7 +4,7 @@ import { conventionDecisionsView } from '../../../../services/conventions'
 
 /** The manuscript's conventions and every proposal about them: who proposed, who agreed and when, status. Members only. */
 export default defineEventHandler(async (event): Promise<ConventionDecisionsView> => {
-  const { id } = await idParamsAs(event, 'id')
+  const { id } = await routeParamsAs(event, uuidParams('id'))
   await authorize(event, { manuscript: id })
   return conventionDecisionsView(useDb(), id)
 })

@@ -9,7 +9,7 @@ const Body = z.object({
 
 /** A member proposes a convention; it is accepted when every other member has agreed (at once when there is no other member). */
 export default defineEventHandler(async (event) => {
-  const { id } = await idParamsAs(event, 'id')
+  const { id } = await routeParamsAs(event, uuidParams('id'))
   const grant = await authorize(event, { manuscript: id })
   const { axis, conventionId } = await readBodyAs(event, Body)
   const outcome = await proposeConvention(useDb(), await useQueue(), { manuscriptId: id, userId: grant.user.id, axis, conventionId })

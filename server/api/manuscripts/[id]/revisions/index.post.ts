@@ -3,7 +3,7 @@ import { MalformedUploadError, MAX_UPLOAD_REQUEST_BYTES, receiveMultipartUpload,
 
 
 export default defineEventHandler(async (event) => {
-  const { id } = await idParamsAs(event, 'id')
+  const { id } = await routeParamsAs(event, uuidParams('id'))
   const grant = await authorize(event, { manuscript: id })
   let upload: ReceivedUpload
   try {

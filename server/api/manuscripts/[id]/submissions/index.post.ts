@@ -7,7 +7,7 @@ import { appendAudit } from '../../../../repositories/audit'
 const Body = z.object({ revisionId: z.string().uuid('Choose a revision'), venueId: z.string().uuid('Choose a venue') })
 
 export default defineEventHandler(async (event) => {
-  const { id } = await idParamsAs(event, 'id')
+  const { id } = await routeParamsAs(event, uuidParams('id'))
   const grant = await authorize(event, { manuscript: id })
   const body = await readBodyAs(event, Body)
   const db = useDb()

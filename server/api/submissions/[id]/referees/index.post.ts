@@ -5,7 +5,7 @@ const Body = z.object({ email: z.string().trim().toLowerCase().pipe(z.email('Ent
 
 /** The submission's editor invites a referee by e-mail; anyone else gets 404. */
 export default defineEventHandler(async (event) => {
-  const { id } = await idParamsAs(event, 'id')
+  const { id } = await routeParamsAs(event, uuidParams('id'))
   const grant = await authorize(event, { submissionEditor: id })
   const { email } = await readBodyAs(event, Body)
   const invitation = await inviteReferee(useDb(), grant, email, String(useRuntimeConfig().publicBaseUrl).replace(/\/+$/, ''))

@@ -1,8 +1,5 @@
-import { z } from 'zod'
 import { lockSubmissionOfManuscript, markSubmissionWithdrawn } from '../../../../../repositories/submissions'
 import { appendAudit } from '../../../../../repositories/audit'
-
-const Params = z.object({ id: z.string().uuid(), submissionId: z.string().uuid() })
 
 /**
  * The owner withdraws a submission. A submitted manuscript cannot be deleted (its venue's
@@ -10,7 +7,7 @@ const Params = z.object({ id: z.string().uuid(), submissionId: z.string().uuid()
  * its referees' notes and its audit trail stay with the venue, marked withdrawn.
  */
 export default defineEventHandler(async (event) => {
-  const { id, submissionId } = await routeParamsAs(event, Params)
+  const { id, submissionId } = await routeParamsAs(event, uuidParams('id', 'submissionId'))
   const grant = await authorize(event, { manuscript: id, owner: true })
   await useDb().transaction().execute(async (trx) => {
     const submission = await lockSubmissionOfManuscript(trx, submissionId, id)
