@@ -36,9 +36,9 @@ export default defineNuxtConfig({
     '/**': {
       headers: {
         'content-security-policy': [
-          "default-src 'self'", "script-src 'self' 'unsafe-inline'", "style-src 'self' 'unsafe-inline'",
-          "font-src 'self' data:", "img-src 'self' data:", "connect-src 'self'", "object-src 'none'",
-          "base-uri 'self'", "form-action 'self'", "frame-ancestors 'none'",
+          'default-src \'self\'', 'script-src \'self\' \'unsafe-inline\'', 'style-src \'self\' \'unsafe-inline\'',
+          'font-src \'self\' data:', 'img-src \'self\' data:', 'connect-src \'self\'', 'object-src \'none\'',
+          'base-uri \'self\'', 'form-action \'self\'', 'frame-ancestors \'none\'',
         ].join('; '),
         'x-content-type-options': 'nosniff',
         'x-frame-options': 'DENY',

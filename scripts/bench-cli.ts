@@ -55,8 +55,8 @@ function race(commands: Record<string, string[]>): Record<string, number> {
 const launcher = join(root, 'bin/scholium.mjs')
 const bundle = join(root, 'dist/cli/scholium.mjs')
 const earlier = (args: string[]): Record<string, string[]> => against ? { earlier: [against, ...args] } : {}
-const small = race({ 'bare node': ['-e', '0'], 'tsx launcher': [launcher, 'check', oneClaim], bundled: [bundle, 'check', oneClaim], ...earlier(['check', oneClaim]) })
-const large = race({ 'tsx launcher': [launcher, 'check', paper], bundled: [bundle, 'check', paper], ...earlier(['check', paper]) })
+const small = race({ 'bare node': ['-e', '0'], 'tsx launcher': [launcher, 'check', oneClaim], 'bundled': [bundle, 'check', oneClaim], ...earlier(['check', oneClaim]) })
+const large = race({ 'tsx launcher': [launcher, 'check', paper], 'bundled': [bundle, 'check', paper], ...earlier(['check', paper]) })
 rmSync(scratch, { recursive: true, force: true })
 
 const ms = (t: number) => `${t.toFixed(0)} ms`

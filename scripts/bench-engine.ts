@@ -212,7 +212,7 @@ async function products(): Promise<void> {
   console.log(`\npeak memory (max RSS of this process): ${rss.toFixed(0)} MB`)
 }
 
-main().catch(e => {
+main().catch((e) => {
   console.error(e)
   process.exit(1)
 })

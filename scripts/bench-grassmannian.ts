@@ -71,7 +71,7 @@ process.stdout.write(out)
   return outfile
 }
 
-function lrcalcTerms(out: string): { c: number; nu: Partition }[] {
+function lrcalcTerms(out: string): { c: number, nu: Partition }[] {
   return out.split('\n').map(l => l.trim()).filter(Boolean).map((l) => {
     const m = /^(-?\d+)\s+\(([\d,\s]*)\)$/.exec(l)
     if (!m) throw new Error(`unexpected lrcalc line "${l}"`)
@@ -81,7 +81,7 @@ function lrcalcTerms(out: string): { c: number; nu: Partition }[] {
 
 const size = (p: readonly number[]) => p.reduce((s, a) => s + a, 0)
 
-interface Measured { cold: number; warm: number; whole: number; theirs: number; same: boolean; terms: number }
+interface Measured { cold: number, warm: number, whole: number, theirs: number, same: boolean, terms: number }
 
 function measure<T extends Map<string, unknown>>(ours: () => T, workerArgs: string[], lrcalcArgs: string[], expected: (lrcalcOut: string) => Map<string, number>, worker: string, reps: number): Measured {
   const [first, cold] = time(ours)
@@ -109,7 +109,7 @@ async function main(): Promise<void> {
 
   const k = 4
   const n = 9
-  const report = (title: string, rows: string[][], totals: { warm: number; whole: number; theirs: number; net: number }) => {
+  const report = (title: string, rows: string[][], totals: { warm: number, whole: number, theirs: number, net: number }) => {
     console.log(title)
     table(['product', 'terms', 'agree', 'ours cold', 'ours warm', 'ours process', 'lrcalc', 'lrcalc net', 'warm/lrcalc', 'warm/net', 'process/lrcalc'], rows)
     console.log(`total: ours warm ${fmt(totals.warm)} ms, ours process ${fmt(totals.whole)} ms, lrcalc ${fmt(totals.theirs)} ms (net of start-up ${fmt(totals.net)} ms)`)

@@ -8,13 +8,13 @@ declare module 'autocannon' {
     headers?: Record<string, string>
   }
   interface Result {
-    requests: { total: number, average: number }
-    errors: number
-    timeouts: number
-    non2xx: number
+    'requests': { total: number, average: number }
+    'errors': number
+    'timeouts': number
+    'non2xx': number
     '2xx': number
     '3xx'?: number
-    latency: { max: number }
+    'latency': { max: number }
   }
   interface Instance {
     on(event: 'response', listener: (client: unknown, statusCode: number, resBytes: number, responseTime: number) => void): void

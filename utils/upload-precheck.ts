@@ -12,10 +12,10 @@ const MAX_UPLOAD_REQUEST_BYTES = UPLOAD_LIMITS.maxRequestBytes
 
 export interface ChosenFile { path: string, size: number }
 
-export type FileVerdict =
-  | { path: string, size: number, status: 'accepted' }
-  | { path: string, size: number, status: 'left-out', reason: string }
-  | { path: string, size: number, status: 'refused', code: UploadRefusalCode, reason: string }
+export type FileVerdict
+  = | { path: string, size: number, status: 'accepted' }
+    | { path: string, size: number, status: 'left-out', reason: string }
+    | { path: string, size: number, status: 'refused', code: UploadRefusalCode, reason: string }
 
 export interface Precheck {
   files: FileVerdict[]

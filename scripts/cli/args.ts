@@ -29,11 +29,11 @@ export interface CheckCommand {
   scriptFor?: string
 }
 
-export type ParsedArguments =
-  | CheckCommand
-  | { command: 'help' }
-  | { command: 'version' }
-  | { command: 'problem', message: string }
+export type ParsedArguments
+  = | CheckCommand
+    | { command: 'help' }
+    | { command: 'version' }
+    | { command: 'problem', message: string }
 
 export const USAGE = `Usage: scholium check <file.tex | folder | file.zip | file.tar.gz | arxiv:<id>> [options]
 

@@ -105,4 +105,3 @@ function formatReport(report: Report, command: CheckCommand, source: SourceFiles
 function withSkippedFiles(report: Report, skipped: SourceFiles['skipped']): void {
   for (const s of skipped) report.warnings.push({ code: 'file-left-out', message: `left out: ${s.reason}`, file: s.path })
 }
-

@@ -22,7 +22,7 @@ export interface MailMessage { to: string, subject: string, text: string }
 export type MailSender = (message: MailMessage) => Promise<void>
 
 /** One nodemailer transport for the settings, with the given connection, greeting and socket timeouts in ms. */
-function transportFor(smtp: SmtpSettings, timeouts: { connect: number; greeting: number; socket: number }) {
+function transportFor(smtp: SmtpSettings, timeouts: { connect: number, greeting: number, socket: number }) {
   const secure = isTrue(smtp.secure)
   return nodemailer.createTransport({
     host: smtp.host,

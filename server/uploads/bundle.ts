@@ -67,12 +67,13 @@ export async function readUploadBundle(uploads: readonly UploadedFile[], limits:
     // command-line check of a plain .tex file would otherwise parse at start-up.
     if (kind === 'zip') await (await import('./zip')).readZip(single, collector)
     else await (await import('./tar')).readTar(single, kind === 'tar.gz', collector)
-    const top = commonTopFolder(collector.files.map((file) => file.path))
+    const top = commonTopFolder(collector.files.map(file => file.path))
     if (top !== null) {
       for (const file of collector.files) file.path = file.path.slice(top.length + 1)
       strippedTopFolder = describeEntryName(top)
     }
-  } else {
+  }
+  else {
     if (uploads.length > effective.maxFiles) throw refuse('too-many-files', `more than ${effective.maxFiles} files were sent.`)
     collector = new BundleCollector(effective, false)
     for (const upload of uploads) {
@@ -88,7 +89,7 @@ export async function readUploadBundle(uploads: readonly UploadedFile[], limits:
     throw new UploadRefusedError('empty', kind ? 'The archive contains no files.' : 'No files were uploaded.')
   }
   checkNoCollisions(collector.files)
-  if (!collector.files.some((file) => file.path.toLowerCase().endsWith('.tex'))) {
+  if (!collector.files.some(file => file.path.toLowerCase().endsWith('.tex'))) {
     throw new UploadRefusedError('no-tex', 'The upload contains no .tex file; at least one LaTeX source is needed.')
   }
 

@@ -21,7 +21,7 @@ export function archiveKindOf(filename: string): ArchiveKind | null {
 
 /** The archive extension a lower-case name ends with, read or not, e.g. '.7z'; null if none. */
 export function archiveExtensionOf(lowerName: string): string | null {
-  return KNOWN_ARCHIVE_EXTENSIONS.find((ext) => lowerName.endsWith(ext)) ?? null
+  return KNOWN_ARCHIVE_EXTENSIONS.find(ext => lowerName.endsWith(ext)) ?? null
 }
 
 /** The last extension of a lower-case path, with the dot; '' for none or a dotfile. Example: 'a/b.tex' → '.tex'. */
@@ -67,7 +67,7 @@ export function checkPath(raw: string, limits: PathLimits): CheckedPath {
   const segments: string[] = []
   for (const segment of raw.normalize('NFC').split('/')) {
     if (segment === '' || segment === '.') continue
-    if (segment === '..') throw refuse('path-unsafe', "paths may not contain '..' segments.", raw)
+    if (segment === '..') throw refuse('path-unsafe', 'paths may not contain \'..\' segments.', raw)
     segments.push(segment)
   }
   if (segments.length === 0) throw refuse('path-unsafe', 'the name has no file or folder part.', raw)

@@ -38,7 +38,8 @@ export function describeEntryName(raw: string): string {
   for (const ch of raw) {
     if (PLAIN_NAME_CHAR.test(ch)) {
       shown += ch
-    } else {
+    }
+    else {
       const code = ch.codePointAt(0) ?? 0
       shown += code <= 0xff ? `\\x${code.toString(16).padStart(2, '0')}` : `\\u{${code.toString(16)}}`
     }

@@ -4,9 +4,9 @@ import { open, readFile } from 'node:fs/promises'
 import { Readable } from 'node:stream'
 
 /** One uploaded file as the client named it, e.g. `{ filename: 'paper.zip', tempPath: '/tmp/…/0', size: 1234 }`. */
-export type UploadedFile =
-  | { filename: string, data: Buffer }
-  | { filename: string, tempPath: string, size: number }
+export type UploadedFile
+  = | { filename: string, data: Buffer }
+    | { filename: string, tempPath: string, size: number }
 
 /** The file's size in bytes. */
 export function uploadSize(upload: UploadedFile): number {

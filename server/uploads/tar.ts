@@ -26,7 +26,8 @@ function tarByteCounter(ceiling: number, meter: ExpansionMeter | null): Transfor
         if (seen > ceiling) throw refuse('too-large', `the archive unpacks to more than ${formatBytes(ceiling)} of tar data.`)
         meter?.add(chunk.length)
         callback(null, chunk)
-      } catch (error) {
+      }
+      catch (error) {
         callback(error as Error)
       }
     },
@@ -59,11 +60,12 @@ export async function readTar(upload: UploadedFile, gzipped: boolean, collector:
         for await (const _ of entry) { /* drain: directories and metadata carry nothing we keep */ }
         continue
       }
-      const bytes = await collectChunks(entry, (n) => collector.countFileBytes(n))
+      const bytes = await collectChunks(entry, n => collector.countFileBytes(n))
       collector.addFile(decision.path, entry.header.name, bytes)
     }
     await feeding
-  } catch (error) {
+  }
+  catch (error) {
     extract.destroy()
     // The first failure is the meaningful one: a refusal raised in the pipeline wins over the
     // "destroyed" error the loop then sees.

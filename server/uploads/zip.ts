@@ -29,7 +29,8 @@ export async function readZip(upload: UploadedFile, collector: BundleCollector):
   let zip: ZipFile
   try {
     zip = 'data' in upload ? await yauzl.fromBufferPromise(upload.data, ZIP_OPTIONS) : await yauzl.openPromise(upload.tempPath, ZIP_OPTIONS)
-  } catch (error) {
+  }
+  catch (error) {
     throw corruptArchive('zip', error)
   }
   try {
@@ -41,9 +42,11 @@ export async function readZip(upload: UploadedFile, collector: BundleCollector):
       collector.countEntry()
       await readZipEntry(zip, entry, collector, meter)
     }
-  } catch (error) {
+  }
+  catch (error) {
     throw corruptArchive('zip', error)
-  } finally {
+  }
+  finally {
     zip.close()
   }
 }

@@ -12,14 +12,14 @@ import { findSubmissionForEditor, listAssignmentsForReferee } from '../repositor
  * manuscript, another venue, an unassigned submission), refusal is 404,
  * so the answer does not confirm that it exists.
  */
-export type Requirement =
-  | { signedIn: true }
-  | { siteAdmin: true }
-  | { manuscript: string, owner?: boolean }
-  | { venueEditor: string }
-  | { refereeAssignment: string }
-  | { revision: string }
-  | { submissionEditor: string }
+export type Requirement
+  = | { signedIn: true }
+    | { siteAdmin: true }
+    | { manuscript: string, owner?: boolean }
+    | { venueEditor: string }
+    | { refereeAssignment: string }
+    | { revision: string }
+    | { submissionEditor: string }
 
 export interface ManuscriptGrant { user: SessionUser, manuscriptId: string, role: ManuscriptRole, isOwner: boolean, title: string, conventions: Record<string, string> }
 export interface RevisionGrant { user: SessionUser, revisionId: string, revisionNumber: number, manuscriptId: string, title: string, conventions: Record<string, string>, viewer: RevisionViewer }

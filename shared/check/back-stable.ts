@@ -122,9 +122,9 @@ export function backStableLatex(t: BackStableTerms, maxTerms: number): string {
 
 /** Compare computed (left) with claimed (right) basis element by basis element. */
 export function backStableDiff(computed: BackStableTerms, claimed: BackStableTerms): ClaimDiff | null {
-  const missing: { term: string; coefficient: string }[] = []
-  const extra: { term: string; coefficient: string }[] = []
-  const wrong: { term: string; claimed: string; computed: string }[] = []
+  const missing: { term: string, coefficient: string }[] = []
+  const extra: { term: string, coefficient: string }[] = []
+  const wrong: { term: string, claimed: string, computed: string }[] = []
   const keys = new Set([...computed.keys(), ...claimed.keys()])
   for (const k of [...keys].sort()) {
     const d = polynomialDifference(computed.get(k) ?? Polynomial.zero(), claimed.get(k) ?? Polynomial.zero())
@@ -143,4 +143,3 @@ export function backStableDiff(computed: BackStableTerms, claimed: BackStableTer
     notes: ['s_λ(x_{≤0}) is the Schur function in the non-positive variables x_0, x_{−1}, …'],
   }
 }
-

@@ -18,9 +18,9 @@ export interface VariantResult {
   diff: ClaimDiff | null
 }
 
-export type ClaimEvaluation =
-  | { status: 'evaluated', axes: ConventionAxis[], fixed: Partial<ConventionSet>, variants: VariantResult[], permutations: number[][] }
-  | { status: 'unsupported' | 'error' | 'skipped', message: string, permutations: number[][] }
+export type ClaimEvaluation
+  = | { status: 'evaluated', axes: ConventionAxis[], fixed: Partial<ConventionSet>, variants: VariantResult[], permutations: number[][] }
+    | { status: 'unsupported' | 'error' | 'skipped', message: string, permutations: number[][] }
 
 /** Budget for one claim; the run's AbortSignal stops it from outside. */
 export const CLAIM_BUDGET: Required<Omit<Budget, 'signal'>> = { maxTerms: 400_000, maxSteps: 40_000_000, maxMilliseconds: 10_000 }
@@ -51,7 +51,7 @@ export function evaluateClaim(claim: Claim, options: { fixed?: Partial<Conventio
   try {
     for (const conventions of combinations(axes, fixed)) {
       // Each convention variant gets its own meter: the time limit is per evaluation, not shared.
-    const meter = new BudgetMeter({ ...CLAIM_BUDGET, ...options.budget })
+      const meter = new BudgetMeter({ ...CLAIM_BUDGET, ...options.budget })
       const comparison = compareSides(claim.question.lhs, claim.question.rhs, { conventions, meter, memo, formalBeta, ...(backStable ? { backStable } : {}), ...(claim.question.setting ? { grassmannian: claim.question.setting } : {}) })
       variants.push({ conventions, ...comparison })
     }
@@ -95,9 +95,17 @@ function variablesAdvice(...sides: Expr[]): string {
 
 function firstInfiniteObject(e: Expr): Extract<Expr, { type: 'symmetric' | 'stanley' }> | undefined {
   if (e.type === 'stanley' || (e.type === 'symmetric' && e.variableCount === undefined)) return e
-  const children: Expr[] = e.type === 'add' ? e.terms : e.type === 'multiply' ? e.factors
-    : e.type === 'negate' ? [e.arg] : e.type === 'power' ? [e.base] : e.type === 'dividedDifference' ? [e.arg]
-      : e.type === 'determinant' ? e.rows.flat() : e.type === 'evaluateAtOnes' ? [e.arg] : []
+  const children: Expr[] = e.type === 'add'
+    ? e.terms
+    : e.type === 'multiply'
+      ? e.factors
+      : e.type === 'negate'
+        ? [e.arg]
+        : e.type === 'power'
+          ? [e.base]
+          : e.type === 'dividedDifference'
+            ? [e.arg]
+            : e.type === 'determinant' ? e.rows.flat() : e.type === 'evaluateAtOnes' ? [e.arg] : []
   for (const c of children) {
     const found = firstInfiniteObject(c)
     if (found) return found

@@ -28,14 +28,14 @@ export interface ComparableClaim {
   contentKey: string
 }
 
-export type ComparisonCategory =
-  | 'fixed' // failing → verified
-  | 'newlyFailing' // verified or unsupported → failing, or a new claim that fails
-  | 'stillFailing' // failing → failing
-  | 'unchangedVerified' // verified → verified (the source may have been edited; see `changed`)
-  | 'unchecked' // a pair with an unsupported side that is none of the above
-  | 'added' // only in "to", not failing
-  | 'removed' // only in "from"
+export type ComparisonCategory
+  = | 'fixed' // failing → verified
+    | 'newlyFailing' // verified or unsupported → failing, or a new claim that fails
+    | 'stillFailing' // failing → failing
+    | 'unchangedVerified' // verified → verified (the source may have been edited; see `changed`)
+    | 'unchecked' // a pair with an unsupported side that is none of the above
+    | 'added' // only in "to", not failing
+    | 'removed' // only in "from"
 
 export const COMPARISON_CATEGORIES: readonly ComparisonCategory[] = ['fixed', 'newlyFailing', 'stillFailing', 'unchangedVerified', 'unchecked', 'added', 'removed']
 

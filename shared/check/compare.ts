@@ -91,7 +91,7 @@ function parametricComparison(left: Value, right: Value, env: EvaluationEnv): Co
   const claimed = numeratorOver(r, d, env.meter)
   const difference = parametricDifference(computed, claimed)
   const over = d.some(e => e > 0) ? denominatorLatex(d, l.beta) : ''
-  const term = (t: { parameters: Record<string, number>; x: readonly number[]; y: readonly number[] }) => parametricMonomialLatex(t.parameters, t.x, t.y) || '1'
+  const term = (t: { parameters: Record<string, number>, x: readonly number[], y: readonly number[] }) => parametricMonomialLatex(t.parameters, t.x, t.y) || '1'
   return {
     holds: difference.equal,
     computed: over ? `\\frac{${computed.toLatex(COMPUTED_LATEX_TERMS)}}{${over}}` : computed.toLatex(COMPUTED_LATEX_TERMS),
@@ -259,4 +259,3 @@ function limitDiff(basis: 'monomial' | 'schubert' | 'schur', missingCount: numbe
     ...(cut ? { truncated: { missing: missingCount, extra: extraCount, wrongCoefficient: wrongCount } } : {}),
   }
 }
-

@@ -95,7 +95,7 @@ export function decideClaim(claim: Claim, ev: ClaimEvaluation, conventions: Conv
 function betaZeroSignSlip(claim: Claim, holdsUnder: ConventionId[], effective: ConventionSet): string | undefined {
   if (holdsUnder.length !== 1 || (holdsUnder[0] !== 'k-oplus' && holdsUnder[0] !== 'k-ominus')) return undefined
   const q = claim.question
-  if (!q || !hasBetaZeroOfDoubleGrothendieck(q.lhs) && !hasBetaZeroOfDoubleGrothendieck(q.rhs)) return undefined
+  if (!q || (!hasBetaZeroOfDoubleGrothendieck(q.lhs) && !hasBetaZeroOfDoubleGrothendieck(q.rhs))) return undefined
   const paper = effective.kFactor
   const factor = paper === 'k-oplus' ? 'x_i ⊕ y_j' : 'x_i ⊖ y_j'
   const gives = paper === 'k-oplus' ? 'S_w(x; −y), factors x_i + y_j' : 'S_w(x; y), factors x_i − y_j'

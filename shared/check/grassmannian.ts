@@ -88,8 +88,8 @@ export function compareInRing(lhs: Expr, rhs: Expr, env: EvaluationEnv, setting:
  * Terms c σ_λ (c an integer, possibly times a power of q) of a side written as a sum of classes,
  * with λ outside the box; e.g. `σ_{22} + σ_{31}` in Gr(2,4) gives σ_{31}.
  */
-function writtenOutsideBox(side: Expr, s: GrassmannianSetting): { key: string; latex: string; coefficient: Coefficient }[] {
-  const out: { key: string; latex: string; coefficient: Coefficient }[] = []
+function writtenOutsideBox(side: Expr, s: GrassmannianSetting): { key: string, latex: string, coefficient: Coefficient }[] {
+  const out: { key: string, latex: string, coefficient: Coefficient }[] = []
   const term = (e: Expr, sign: Coefficient): void => {
     if (e.type === 'negate') return term(e.arg, negateCoefficient(sign))
     let coefficient = sign
@@ -158,7 +158,6 @@ function schurCombinationIn(schur: SchurCombination, s: GrassmannianSetting): Qu
   }
   return out
 }
-
 
 function multiply(a: QuantumCombination, b: QuantumCombination, s: GrassmannianSetting, env: EvaluationEnv): QuantumCombination {
   if (a.size === 0 || b.size === 0) return new Map()
@@ -246,7 +245,6 @@ function symmetricValue(expr: Expr, env: EvaluationEnv): SchurCombination {
   if (v.kind === 'number') return v.value === 0n ? new Map() : new Map([['', toCoefficient(v.value)]])
   throw new UnsupportedClaimError('⊗ and Δ are read of symmetric functions written without variables')
 }
-
 
 /** The value of one side in Λ ⊗ Λ. */
 function tensorValue(expr: Expr, env: EvaluationEnv): Map<string, Coefficient> {

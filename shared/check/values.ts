@@ -17,13 +17,13 @@ import {
 } from '../math'
 import { addTerms, liftPolynomial, liftSymmetric, multiplyTerms, negateTerms, polynomialPart, type BackStableTerms } from './back-stable'
 
-export type Value =
-  | { kind: 'number', value: bigint }
-  | { kind: 'polynomial', poly: Polynomial }
-  | { kind: 'symmetric', schur: SchurCombination }
-  | { kind: 'parametric', poly: ParametricPolynomial, denominator: number[], beta: number | null }
+export type Value
+  = | { kind: 'number', value: bigint }
+    | { kind: 'polynomial', poly: Polynomial }
+    | { kind: 'symmetric', schur: SchurCombination }
+    | { kind: 'parametric', poly: ParametricPolynomial, denominator: number[], beta: number | null }
   /** Λ(x_{≤0}) ⊗ Λ(y_{≤0}) ⊗ ℤ[x, y] of a back-stable claim (check/back-stable.ts). */
-  | { kind: 'backStable', terms: BackStableTerms }
+    | { kind: 'backStable', terms: BackStableTerms }
 
 type ParametricValue = Extract<Value, { kind: 'parametric' }>
 
@@ -69,7 +69,6 @@ function toSymmetric(v: Value): SchurCombination {
   if (v.kind === 'number') return v.value === 0n ? new Map() : new Map([[partitionKey([]), safeNumber(v.value)]])
   throw new UnsupportedClaimError(INFINITE_WITH_FINITE)
 }
-
 
 function combine(a: Value, b: Value): 'number' | 'polynomial' | 'symmetric' | 'parametric' | 'backStable' {
   if (a.kind === 'number' && b.kind === 'number') return 'number'
@@ -199,4 +198,3 @@ export function powerValue(a: Value, exponent: number, meter: BudgetMeter): Valu
   for (let i = 0; i < exponent; i++) result = multiplyValues(result, a, meter)
   return result
 }
-

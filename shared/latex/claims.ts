@@ -144,7 +144,8 @@ export class ClaimReader {
     let tree: MathNode[]
     try {
       tree = buildMathTree(region.tokens)
-    } catch (e) {
+    }
+    catch (e) {
       if (!(e instanceof MathSyntaxError)) throw e
       this.pushErrorClaim(region, e.message, e.pos)
       return
@@ -180,7 +181,7 @@ export class ClaimReader {
     const region: MathRegion = { file: grid.file, tokens: [], pos: grid.pos, end: grid.end, display: grid.display }
     const surroundings = surroundingsOf(grid.file.masked, grid.pos)
     // In document order: the table's claims, its unread rows, and the math of its other cells.
-    const actions: { pos: number; run: () => void }[] = [
+    const actions: { pos: number, run: () => void }[] = [
       ...reading.steps.map(step => ({
         pos: step.pos,
         run: () => {
@@ -223,7 +224,7 @@ export class ClaimReader {
    */
   private readStatementList(statements: ReadStatement[], where: Omit<StepPlace, 'label'>): void {
     // The chain's last expression and kind; undefined after a binding, which ends the chain.
-    let chain: { lastSide: MathNode[]; kind?: ClaimKind } | undefined
+    let chain: { lastSide: MathNode[], kind?: ClaimKind } | undefined
     for (const statement of statements) {
       const place: StepPlace = { ...where, label: statement.label }
       if (statement.array && this.readTable(arrayTableGrid(where.region.file, statement.array))) {
@@ -334,7 +335,8 @@ export class ClaimReader {
       }
       this.state.bindings.bind(symbol.name, value)
       return true
-    } catch (e) {
+    }
+    catch (e) {
       if (e instanceof ParseFail) return false
       throw e
     }
@@ -353,7 +355,7 @@ export class ClaimReader {
     const tags = tagsFor(file, position.line, endLine, regionLine)
     const ctx: ParseContext = placement?.bindings ? { ...this.parseContext(), bindings: placement.bindings } : this.parseContext()
     const [lhsRead, rhsRead] = SideParser.parseEquation(lhs, rhs, ctx)
-    const claimTag = tags.find(d => d.type === 'claim') as { type: 'claim'; kind?: ClaimKind } | undefined
+    const claimTag = tags.find(d => d.type === 'claim') as { type: 'claim', kind?: ClaimKind } | undefined
     const skip = tags.some(d => d.type === 'skip')
     if (relation.rel !== '=' && !claimTag) return undefined
     let judgement = judgeStep({ lhs: lhsRead, rhs: rhsRead, lhsNodes: lhs, rhsNodes: rhs, definingLeadIn, inObjectChain: !!chainKind, surroundings })
@@ -372,9 +374,11 @@ export class ClaimReader {
     const base = {
       file: file.path, line: position.line, endLine: Math.max(endLine, position.line), column: position.column,
       // Sides that overlap come from one macro call: its text is the claim as written.
-      source: placement ? placement.source : rhsSpan.pos < lhsSpan.end && lhsSpan.pos < rhsSpan.end
-        ? sliceTrim(file.original, { pos: Math.min(lhsSpan.pos, rhsSpan.pos), end: Math.max(lhsSpan.end, rhsSpan.end) })
-        : `${sliceTrim(file.original, lhsSpan)} = ${sliceTrim(file.original, rhsSpan)}`,
+      source: placement
+        ? placement.source
+        : rhsSpan.pos < lhsSpan.end && lhsSpan.pos < rhsSpan.end
+          ? sliceTrim(file.original, { pos: Math.min(lhsSpan.pos, rhsSpan.pos), end: Math.max(lhsSpan.end, rhsSpan.end) })
+          : `${sliceTrim(file.original, lhsSpan)} = ${sliceTrim(file.original, rhsSpan)}`,
       expandedSource: `${renderNodes(lhs)} = ${renderNodes(rhs)}`,
       conventions: this.activeConventions(useIds(tags)), display: region.display,
       ...(label ? { label } : {}),
@@ -393,10 +397,13 @@ export class ClaimReader {
         ...base, kind, status: skip ? 'skipped' : 'ready', question: { type: 'equality', lhs: lhsRead.expr, rhs: rhsRead.expr, ...(setting ? { setting } : {}) },
         ...(skip ? { reason: 'a tag asks to skip this claim' } : {}),
       }, file)
-    } else {
+    }
+    else {
       kind = claimTag?.kind ?? guessKind(lhsRead, rhsRead)
-      const reason = judgement.type === 'unsupported' ? judgement.reason
-        : judgement.type === 'claim' ? 'unreadable'
+      const reason = judgement.type === 'unsupported'
+        ? judgement.reason
+        : judgement.type === 'claim'
+          ? 'unreadable'
           : `tagged as a claim, but ${judgement.type === 'notRead' ? judgement.reason : 'it holds no recognised object'}`
       this.output.pushClaim({ ...base, kind, status: skip ? 'skipped' : 'unsupported', reason: shortReason(reason) })
     }
@@ -435,7 +442,7 @@ function useIds(tags: TagDirective[]): ConventionId[] {
   return tags.flatMap(d => (d.type === 'use' ? d.conventions : []))
 }
 
-function sliceTrim(text: string, span: { pos: number; end: number }): string {
+function sliceTrim(text: string, span: { pos: number, end: number }): string {
   return text.slice(span.pos, span.end).trim()
 }
 

@@ -20,12 +20,14 @@ export function decodeSource(input: string | Uint8Array): DecodedSource {
   let encoding: DecodedSource['encoding'] = 'utf-8'
   if (typeof input === 'string') {
     text = input
-  } else {
+  }
+  else {
     let bytes = input
     if (bytes.length >= 3 && bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf) bytes = bytes.subarray(3)
     try {
       text = new TextDecoder('utf-8', { fatal: true }).decode(bytes)
-    } catch {
+    }
+    catch {
       // Latin-1 maps every byte to the code point of the same value, so it never fails.
       text = latin1(bytes)
       encoding = 'latin-1'
@@ -74,7 +76,7 @@ export function lineStarts(text: string): number[] {
 }
 
 /** 1-based line and column of an offset, given `lineStarts`: `positionAt([0, 2], 3)` is `{ line: 2, column: 2 }`. */
-export function positionAt(starts: number[], offset: number): { line: number; column: number } {
+export function positionAt(starts: number[], offset: number): { line: number, column: number } {
   let lo = 0
   let hi = starts.length - 1
   while (lo < hi) {

@@ -50,9 +50,9 @@ export interface ParseContext {
   backStable?: boolean
 }
 
-export type SideResult =
-  | { ok: true; expr: Expr; meaningful: boolean; used: Map<string, ContextValue> }
-  | { ok: false; reason: string; recognised: boolean; used: Map<string, ContextValue> }
+export type SideResult
+  = | { ok: true, expr: Expr, meaningful: boolean, used: Map<string, ContextValue> }
+    | { ok: false, reason: string, recognised: boolean, used: Map<string, ContextValue> }
 
 /** Font commands that wrap a name: \mathrm{BPD}, \operatorname{Red}, … */
 const NAME_COMMANDS = new Set(['mathrm', 'operatorname', 'text', 'textrm', 'mathsf', 'mathit', 'textup', 'mathcal', 'rm', 'mathbf', 'textsf', 'mathtt'])
@@ -129,7 +129,8 @@ export class SideParser {
       if (!nodes.length) throw new ParseFail('empty side')
       const expr = p.parseAll()
       return { ok: true, expr, meaningful: p.meaningful, used: p.used }
-    } catch (e) {
+    }
+    catch (e) {
       if (!(e instanceof ParseFail) && !(e instanceof KTheoryReadError)) throw e
       return { ok: false, reason: e.message, recognised: p.recognised || mentionsKnownObject(nodes, ctx), used: p.used }
     }
@@ -159,7 +160,8 @@ export class SideParser {
       this.i += special.length
       this.recognised = true
       e = { type: 'specialise', arg: e, parameter: special.parameter, value: special.value }
-    } else if (leftDot) throw new ParseFail('\\left. without a closing \\right|_{…}')
+    }
+    else if (leftDot) throw new ParseFail('\\left. without a closing \\right|_{…}')
     if (this.i < this.nodes.length) {
       const n = this.nodes[this.i]!
       throw new ParseFail(isCh(n, ')') ? 'unbalanced ")"' : `unexpected ${describe(n)}`)
@@ -172,7 +174,8 @@ export class SideParser {
     try {
       if (!nodes.length) throw new ParseFail('empty group')
       return p.parseAll()
-    } finally {
+    }
+    finally {
       this.recognised ||= p.recognised
       this.meaningful ||= p.meaningful
       for (const [k, v] of p.used) this.used.set(k, v)
@@ -244,7 +247,8 @@ export class SideParser {
       if (isCs(n, 'cdot') || isCs(n, 'times') || isCh(n, '*') || this.isClassProduct(n)) {
         this.i++
         factors.push(this.parseFactor())
-      } else if (this.startsFactor(n)) factors.push(this.parseFactor())
+      }
+      else if (this.startsFactor(n)) factors.push(this.parseFactor())
       else break
     }
     return factors.length === 1 ? factors[0]! : { type: 'multiply', factors }
@@ -265,8 +269,8 @@ export class SideParser {
   }
 
   /** Read `_x` and `^y` after a head, in either order. */
-  private readScripts(): { sub?: MathNode[]; sup?: MathNode[] } {
-    const out: { sub?: MathNode[]; sup?: MathNode[] } = {}
+  private readScripts(): { sub?: MathNode[], sup?: MathNode[] } {
+    const out: { sub?: MathNode[], sup?: MathNode[] } = {}
     for (;;) {
       const n = this.peek()
       const which = isCh(n, '_') ? 'sub' : isCh(n, '^') ? 'sup' : undefined
@@ -279,7 +283,7 @@ export class SideParser {
   }
 
   /** If a parenthesised list follows, return its content (without consuming unless `consume`). */
-  private parenthesised(): { content: MathNode[]; length: number } | undefined {
+  private parenthesised(): { content: MathNode[], length: number } | undefined {
     const n = this.peek()
     let open = 1
     let close: (m: MathNode) => boolean
@@ -287,7 +291,8 @@ export class SideParser {
     else if (isCs(n, 'left') && isCh(this.peek(1), '(')) {
       open = 2
       close = m => isCs(m, 'right')
-    } else return undefined
+    }
+    else return undefined
     let depth = 0
     for (let j = this.i + open; j < this.nodes.length; j++) {
       const m = this.nodes[j]!
@@ -295,7 +300,8 @@ export class SideParser {
       else if (depth > 0 && (isCh(m, ')') || isCs(m, 'right'))) {
         depth--
         if (isCs(m, 'right')) j++
-      } else if (depth === 0 && close(m)) {
+      }
+      else if (depth === 0 && close(m)) {
         const length = j - this.i + (open === 2 ? 2 : 1)
         return { content: this.nodes.slice(this.i + open, j), length }
       }
@@ -539,7 +545,7 @@ export class SideParser {
    * Optional variables after an object: (x), (x;y), (x,y), (\mathbf x;\mathbf y), (x_1,…,x_n),
    * or (1,…,1). A parenthesis that is none of these is left for multiplication.
    */
-  private variableArguments(): { kind: 'none' | 'single' | 'double' | 'ones'; count?: number; negatedY?: boolean } {
+  private variableArguments(): { kind: 'none' | 'single' | 'double' | 'ones', count?: number, negatedY?: boolean } {
     const paren = this.parenthesised()
     if (!paren) return { kind: 'none' }
     const content = paren.content
@@ -564,12 +570,13 @@ export class SideParser {
     }
     const items = groups.flatMap(g => splitCommas(g))
     const letters = items.map(it => variableLetter(it, this.ctx, this.used))
-    let result: { kind: 'none' | 'single' | 'double' | 'ones'; count?: number } | undefined
+    let result: { kind: 'none' | 'single' | 'double' | 'ones', count?: number } | undefined
     if (letters.every(l => l !== undefined)) {
       const set = new Set(letters.map(l => l!.letter))
       if (set.size === 1 && set.has('x')) result = { kind: 'single', count: countOf(letters) }
       else if (set.size === 2 && set.has('x') && set.has('y')) result = { kind: 'double' }
-    } else if (items.every(it => isOne(it) || isDots(it)) && items.some(isOne)) {
+    }
+    else if (items.every(it => isOne(it) || isDots(it)) && items.some(isOne)) {
       const hasDots = items.some(isDots)
       result = { kind: 'ones', count: hasDots ? undefined : items.length }
     }
@@ -608,7 +615,8 @@ export class SideParser {
       index = readPartition(skewShape.outer, this.ctx, this.used)
       skew = readPartition(skewShape.inner, this.ctx, this.used)
       if (skew.some((part, row) => part > (index[row] ?? 0))) throw new ParseFail(`(${skew.join(',')}) does not fit inside (${index.join(',')}), so ${letter}_{λ/μ} is not a skew shape`)
-    } else index = multiplicative ? readMultiplicativeIndex(sub, this.ctx, this.used) : readPartition(sub, this.ctx, this.used)
+    }
+    else index = multiplicative ? readMultiplicativeIndex(sub, this.ctx, this.used) : readPartition(sub, this.ctx, this.used)
     // s_λ[x_-], s_λ(x_0, x_{-1}, \dots): in the non-positive variables (notation/back-stable.ts).
     const nonPositive = nonPositiveAlphabetAt(this.nodes, this.i)
     if (nonPositive) {
@@ -682,7 +690,8 @@ export class SideParser {
     if (head.k === 'cs' && NAME_COMMANDS.has(head.v) && nodes[j + 1]) {
       name = plainText(childrenOf(nodes[j + 1]!)).trim()
       j += 2
-    } else if (head.k === 'ch') {
+    }
+    else if (head.k === 'ch') {
       name = ''
       while (nodes[j]?.k === 'ch' && /^[A-Za-z]$/.test((nodes[j] as { v: string }).v)) name += (nodes[j++] as { v: string }).v
     }
@@ -760,7 +769,8 @@ export class SideParser {
           for (const [name, value] of used) this.used.set(name, value)
           return expr
         }
-      } catch (e) {
+      }
+      catch (e) {
         if (!(e instanceof ParseFail)) throw e
       }
     }
@@ -843,7 +853,8 @@ export class SideParser {
     let arg: Expr
     try {
       arg = this.parseProduct()
-    } finally {
+    }
+    finally {
       this.ctx = saved
     }
     this.meaningful = true
@@ -871,7 +882,8 @@ export class SideParser {
     let arg: Expr
     try {
       arg = this.sub(paren.content)
-    } catch (e) {
+    }
+    catch (e) {
       this.i = saved
       throw e
     }
@@ -945,7 +957,8 @@ function isBetaSuperscript(sup: MathNode[], ctx: ParseContext): boolean {
 function isSpecialisationBar(nodes: MathNode[], at: number, ctx: ParseContext): boolean {
   try {
     return readSpecialisation(nodes, at, ctx) !== undefined
-  } catch (e) {
+  }
+  catch (e) {
     if (e instanceof KTheoryReadError) return false
     throw e
   }
@@ -986,12 +999,12 @@ function isStanleyIndex(sub: MathNode[], ctx: ParseContext): boolean {
   try {
     readPermutation(sub, ctx, new Map())
     return true
-  } catch (e) {
+  }
+  catch (e) {
     if (e instanceof ParseFail) return false
     throw e
   }
 }
-
 
 /** LaTeX-like text of nodes for messages, cut after 40 nodes with the count of what was cut. */
 function describeNodes(nodes: MathNode[], max = 40): string {
@@ -1009,7 +1022,7 @@ function splitAt(nodes: MathNode[], isSep: (m: MathNode) => boolean): MathNode[]
 }
 
 /** One entry of a variable list: `x`, `x_3`, `\\mathbf y`, `\\dots`, or `x_n` with n bound to an integer. */
-function variableLetter(item: MathNode[], ctx?: ParseContext, used?: Map<string, ContextValue>): { letter: 'x' | 'y'; index?: number; dots?: boolean } | undefined {
+function variableLetter(item: MathNode[], ctx?: ParseContext, used?: Map<string, ContextValue>): { letter: 'x' | 'y', index?: number, dots?: boolean } | undefined {
   const ns = unwrap(item).filter(n => !(n.k === 'cs' && (n.v === 'mathbf' || n.v === 'boldsymbol' || n.v === 'bm')))
   if (ns.length === 1 && ns[0]!.k === 'group') return variableLetter(ns[0]!.children, ctx, used)
   if (isDots(ns)) return { letter: 'x', dots: true }
@@ -1032,7 +1045,7 @@ function variableLetter(item: MathNode[], ctx?: ParseContext, used?: Map<string,
 }
 
 /** x_1,…,x_n → n; x_1,x_2,x_3 → 3; unclear → undefined. */
-function countOf(letters: ({ letter: 'x' | 'y'; index?: number; dots?: boolean } | undefined)[]): number | undefined {
+function countOf(letters: ({ letter: 'x' | 'y', index?: number, dots?: boolean } | undefined)[]): number | undefined {
   const indices = letters.filter(l => l && !l.dots).map(l => l!.index)
   if (indices.some(i => i === undefined)) return undefined
   const last = indices[indices.length - 1]
@@ -1056,7 +1069,7 @@ function isDots(item: MathNode[]): boolean {
  * A skew shape `λ/μ` in a subscript: `(3,2)/(1)`, `32/1`, `\lambda/\mu`. Exactly one top-level
  * slash with something on both sides; anything else is not a skew shape.
  */
-function splitSkewShape(nodes: MathNode[]): { outer: MathNode[]; inner: MathNode[] } | undefined {
+function splitSkewShape(nodes: MathNode[]): { outer: MathNode[], inner: MathNode[] } | undefined {
   const parts: MathNode[][] = [[]]
   let depth = 0
   for (const n of unwrap(nodes)) {
@@ -1128,13 +1141,13 @@ function splitBySpacing(nodes: MathNode[]): number | undefined {
   return gaps.length === 1 ? gaps[0] : undefined
 }
 
-function lookupSymbol(nodes: MathNode[], ctx: ParseContext): { name: string; value?: ContextValue } | undefined {
+function lookupSymbol(nodes: MathNode[], ctx: ParseContext): { name: string, value?: ContextValue } | undefined {
   const ns = unwrap(nodes)
   let name = symbolName(ns[0])
   if (!name || ns.length > 2) return undefined
   if (ns.length === 2) {
-    if (!isCh(ns[1], "'")) return undefined
-    name += "'"
+    if (!isCh(ns[1], '\'')) return undefined
+    name += '\''
   }
   return { name, value: ctx.bindings.get(name) }
 }
@@ -1172,7 +1185,8 @@ export function readPermutation(nodes: MathNode[], ctx: ParseContext, used: Map<
         const stripped = isCh(inner[0], '(') && isCh(inner[inner.length - 1], ')') ? inner.slice(1, -1) : inner
         n = readInteger(stripped)
         if (n === undefined) throw new ParseFail(`cannot read the superscript of w_0^{${describeNodes(sup)}}; only w_0^{(n)}, the longest permutation of S_n, is read`)
-      } else {
+      }
+      else {
         const bound = ctx.bindings.get('n')
         if (bound?.kind !== 'integer') throw new ParseFail('n is not bound: w_0 needs n (write w_0^{(n)} or "Let $n = 4$")')
         used.set('n', bound)
@@ -1277,7 +1291,7 @@ function readEntries(nodes: MathNode[]): number[] {
     if (!only.length || !only.every(isDigit)) throw new ParseFail(`cannot read ${describeNodes(nodes)} as a list of numbers`)
     return only.map(n => Number((n as { v: string }).v))
   }
-  return items.map(it => {
+  return items.map((it) => {
     const v = readInteger(it)
     if (v === undefined) throw new ParseFail(`"${describeNodes(it)}" is not a number`)
     return v
@@ -1326,7 +1340,8 @@ export function readPartition(nodes: MathNode[], ctx: ParseContext, used: Map<st
   if (items.length === 1 && unwrap(items[0]!).every(isDigit)) {
     parts = unwrap(items[0]!).map(n => Number((n as { v: string }).v))
     if (parts.length > 1 && parts.includes(0)) throw new ParseFail(`${parts.join('')} is ambiguous as a partition; write parts of 10 or more with commas`)
-  } else {
+  }
+  else {
     parts = []
     for (const it of items) {
       const u = unwrap(it)
@@ -1336,7 +1351,8 @@ export function readPartition(nodes: MathNode[], ctx: ParseContext, used: Map<st
         const times = readInteger(u.slice(hat + 1))
         if (part === undefined || times === undefined) throw new ParseFail(`"${describeNodes(it)}" is not a part`)
         for (let r = 0; r < times; r++) parts.push(part)
-      } else {
+      }
+      else {
         const v = readInteger(u)
         const letter = v === undefined ? freeLetter(u, ctx) : undefined
         if (letter) throw new ParseFail(`${letter} is not bound (in the index ${describeNodes(nodes)}): a general statement`)
@@ -1362,7 +1378,8 @@ function readCoefficient(
   const tryRead = <T>(f: () => T): T | undefined => {
     try {
       return f()
-    } catch (e) {
+    }
+    catch (e) {
       if (e instanceof ParseFail) return undefined
       throw e
     }
@@ -1396,11 +1413,11 @@ function readCoefficient(
 }
 
 /** If `nodes` is `symbol = …` with a bindable symbol, the symbol's name. */
-export function bindableSymbol(nodes: MathNode[]): { name: string; family: 'permutation' | 'partition' | 'integer' } | undefined {
+export function bindableSymbol(nodes: MathNode[]): { name: string, family: 'permutation' | 'partition' | 'integer' } | undefined {
   const ns = unwrap(nodes)
   let name = symbolName(ns[0])
   if (!name) return undefined
-  if (ns.length === 2 && isCh(ns[1], "'")) name += "'"
+  if (ns.length === 2 && isCh(ns[1], '\'')) name += '\''
   else if (ns.length !== 1) return undefined
   if (name === 'n' || name === 'k' || name === 'm') return { name, family: 'integer' }
   if (PARTITION_SYMBOLS.has(name)) return { name, family: 'partition' }

@@ -25,7 +25,7 @@ export interface LoadedFile {
   /** Tags attached to a line (skip, claim, use). */
   lineTags: Map<number, TagDirective[]>
   /** Tags that act from their position on (set, means, in Gr(k,n), parameters), by offset. */
-  events: { offset: number; directive: TagDirective }[]
+  events: { offset: number, directive: TagDirective }[]
 }
 
 export type WarnFn = (code: WarningCode, message: string, file?: string, offset?: number) => void
@@ -128,7 +128,7 @@ export class ManuscriptFiles {
     if (named) return [named]
     const texPaths = paths.filter(p => TEX_EXTENSIONS.test(p))
     const candidates = texPaths.length ? texPaths : paths.filter(p => !NOT_SOURCE.test(p) && !/^00README/i.test(p))
-    const withClass = candidates.filter(p => {
+    const withClass = candidates.filter((p) => {
       const f = this.load(p)
       return !!f && hasDocumentClass(f.masked)
     })
@@ -170,7 +170,7 @@ export class ManuscriptFiles {
 
   private rankMainCandidates(paths: string[]): string[] {
     const reads = new Map(paths.map(p => [p, this.filesReadBy(p)]))
-    const candidates: MainCandidate[] = paths.map(path => {
+    const candidates: MainCandidate[] = paths.map((path) => {
       const base = (path.split('/').pop() ?? '').replace(TEX_EXTENSIONS, '').toLowerCase()
       const named = MAIN_NAMES.indexOf(base)
       return {
@@ -202,13 +202,15 @@ export class ManuscriptFiles {
           const sources = (parsed as { sources?: unknown }).sources
           if (Array.isArray(sources)) {
             names = sources
-              .filter((s): s is { filename: string; usage: string } => !!s && typeof s === 'object' && typeof (s as { filename?: unknown }).filename === 'string' && (s as { usage?: unknown }).usage === 'toplevel')
+              .filter((s): s is { filename: string, usage: string } => !!s && typeof s === 'object' && typeof (s as { filename?: unknown }).filename === 'string' && (s as { usage?: unknown }).usage === 'toplevel')
               .map(s => s.filename)
           }
-        } catch {
+        }
+        catch {
           this.warn('main-file', `${path} is not valid JSON; its toplevel file is not used`)
         }
-      } else {
+      }
+      else {
         for (const line of text.split('\n')) {
           const m = /^\s*(\S+)\s+toplevelfile\s*$/i.exec(line)
           if (m) names.push(m[1]!)
@@ -267,7 +269,7 @@ export class ManuscriptFiles {
 
   /** Every file of the bundle with its encoding, line count and role, in name order. */
   fileInfo(): ReadFileInfo[] {
-    return Object.keys(this.files).sort().map(path => {
+    return Object.keys(this.files).sort().map((path) => {
       const f = this.loaded.get(path)
       return {
         path,
@@ -295,12 +297,12 @@ function nextContentLine(file: LoadedFile, line: number): number {
  */
 function compareMainCandidates(a: MainCandidate, b: MainCandidate): number {
   return (
-    Number(b.hasBody) - Number(a.hasBody) ||
-    Number(a.includedByOther) - Number(b.includedByOther) ||
-    a.depth - b.depth ||
-    b.readsFiles - a.readsFiles ||
-    a.nameRank - b.nameRank ||
-    a.path.localeCompare(b.path)
+    Number(b.hasBody) - Number(a.hasBody)
+    || Number(a.includedByOther) - Number(b.includedByOther)
+    || a.depth - b.depth
+    || b.readsFiles - a.readsFiles
+    || a.nameRank - b.nameRank
+    || a.path.localeCompare(b.path)
   )
 }
 

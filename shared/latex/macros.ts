@@ -29,14 +29,14 @@ type PatternItem = { param: number } | { literal: Token }
  * `embellishments` is e/E, one argument per token; `verbatim` is v; `body` is an environment's b.
  * `noSpace` (xparse's `!`) means spaces before an optional argument end the call.
  */
-export type ArgumentSpec =
-  | { kind: 'mandatory' }
-  | { kind: 'optional'; default?: Token[]; open?: string; close?: string; noSpace?: boolean }
-  | { kind: 'required'; open: string; close: string }
-  | { kind: 'boolean'; token: string; noSpace?: boolean }
-  | { kind: 'embellishments'; tokens: string[]; defaults: (Token[] | undefined)[] }
-  | { kind: 'verbatim' }
-  | { kind: 'body' }
+export type ArgumentSpec
+  = | { kind: 'mandatory' }
+    | { kind: 'optional', default?: Token[], open?: string, close?: string, noSpace?: boolean }
+    | { kind: 'required', open: string, close: string }
+    | { kind: 'boolean', token: string, noSpace?: boolean }
+    | { kind: 'embellishments', tokens: string[], defaults: (Token[] | undefined)[] }
+    | { kind: 'verbatim' }
+    | { kind: 'body' }
 
 /** How many parameters (#1 …) an argument fills: one, or one per embellishment token. */
 const paramCount = (spec: ArgumentSpec) => (spec.kind === 'embellishments' ? spec.tokens.length : 1)
@@ -71,10 +71,10 @@ export interface EnvironmentDefinition {
 }
 
 /** What one defining command declared. */
-export type Definition =
-  | { type: 'macro'; macro: MacroDefinition }
-  | { type: 'environment'; environment: EnvironmentDefinition }
-  | { type: 'theorem'; name: string }
+export type Definition
+  = | { type: 'macro', macro: MacroDefinition }
+    | { type: 'environment', environment: EnvironmentDefinition }
+    | { type: 'theorem', name: string }
 
 /** The FILES-and-macros stage's output that later stages read: macros, environments, theorem-like blocks. */
 export class MacroTable {
@@ -148,7 +148,7 @@ const BOOLEAN_FALSE = 'BooleanFalse'
 /** A verbatim (v) argument: its contents are code, never math, so math it lands in is not read. */
 const VERBATIM_NAME = 'verbatim-argument'
 /** xparse's tests on arguments, decided when the argument is a value the reader made (boolean, -NoValue-). */
-const CONDITIONALS: Record<string, { test: 'boolean' | 'noValue' | 'value'; branches: 'TF' | 'T' | 'F' }> = {
+const CONDITIONALS: Record<string, { test: 'boolean' | 'noValue' | 'value', branches: 'TF' | 'T' | 'F' }> = {
   IfBooleanTF: { test: 'boolean', branches: 'TF' }, IfBooleanT: { test: 'boolean', branches: 'T' }, IfBooleanF: { test: 'boolean', branches: 'F' },
   IfNoValueTF: { test: 'noValue', branches: 'TF' }, IfNoValueT: { test: 'noValue', branches: 'T' }, IfNoValueF: { test: 'noValue', branches: 'F' },
   IfValueTF: { test: 'value', branches: 'TF' }, IfValueT: { test: 'value', branches: 'T' }, IfValueF: { test: 'value', branches: 'F' },
@@ -165,7 +165,7 @@ class InexactUse extends Error {}
  * are never expanded.
  */
 export class Expander {
-  private frames: { toks: Token[]; i: number }[] = []
+  private frames: { toks: Token[], i: number }[] = []
   /** Told where a user environment begins and ends (its \begin and \end tokens are consumed). */
   onUserEnvironment: ((name: string, edge: 'begin' | 'end', pos: number) => void) | undefined
 
@@ -306,7 +306,8 @@ export class Expander {
     if (def.pattern) {
       this.matchPattern(t, def, args)
       for (const a of args) noteEnd(a)
-    } else {
+    }
+    else {
       const specs: ArgumentSpec[] = def.args ?? Array.from({ length: def.params }, () => ({ kind: 'mandatory' }) as const)
       // The default comes from the definition: stamp it with the use site's position.
       const stamp = (fallback: Token[] | undefined) => (fallback ?? NO_VALUE).map(d => ({ ...d, pos: t.pos, end: t.end, depth: t.depth + 1 }))
@@ -317,32 +318,39 @@ export class Expander {
             const a = this.readArgument(t)
             noteEnd(a)
             args.push(a)
-          } else if (spec.kind === 'optional' || spec.kind === 'required') {
+          }
+          else if (spec.kind === 'optional' || spec.kind === 'required') {
             const open = spec.kind === 'optional' ? spec.open ?? '[' : spec.open
             const close = spec.kind === 'optional' ? spec.close ?? ']' : spec.close
             const got = open === '[' && close === ']' && !(spec.kind === 'optional' && spec.noSpace) ? this.readOptional(t) : this.readDelimited(t, open, close, spec.kind === 'optional' && !!spec.noSpace)
             if (got) {
               noteEnd(got)
               args.push(got)
-            } else if (spec.kind === 'required') throw new InexactUse()
+            }
+            else if (spec.kind === 'required') throw new InexactUse()
             else args.push(stamp(spec.default))
-          } else if (spec.kind === 'boolean') {
+          }
+          else if (spec.kind === 'boolean') {
             args.push(marker(this.readBooleanToken(spec.token, !!spec.noSpace) ? BOOLEAN_TRUE : BOOLEAN_FALSE))
-          } else if (spec.kind === 'embellishments') {
+          }
+          else if (spec.kind === 'embellishments') {
             const found = this.readEmbellishments(t, spec.tokens)
             spec.tokens.forEach((token, k) => {
               const a = found.get(token)
               if (a) noteEnd(a)
               args.push(a ?? stamp(spec.defaults[k]))
             })
-          } else if (spec.kind === 'verbatim') {
+          }
+          else if (spec.kind === 'verbatim') {
             this.readVerbatim(t)
             args.push(marker(UNREAD_MACRO_PREFIX + VERBATIM_NAME))
-          } else {
+          }
+          else {
             args.push(this.readEnvironmentBody(t, def.name))
           }
         }
-      } catch (e) {
+      }
+      catch (e) {
         if (!(e instanceof InexactUse)) throw e
         this.pushBack([{ k: 'cs', v: UNREAD_MACRO_PREFIX + def.name, pos: t.pos, end: t.end, depth: t.depth }])
         return
@@ -355,7 +363,8 @@ export class Expander {
       if (b.k === 'param') {
         const a = args[Number(b.v) - 1] ?? []
         for (const x of a) out.push(x)
-      } else out.push({ k: b.k, v: b.v, pos: t.pos, end, depth: t.depth + 1 })
+      }
+      else out.push({ k: b.k, v: b.v, pos: t.pos, end, depth: t.depth + 1 })
     }
     this.budget.produced += out.length
     if (this.budget.produced > this.limits.maxExpansionTokens) {
@@ -505,7 +514,8 @@ export class Expander {
           }
         }
         out.push(t, ...nameToks)
-      } else out.push(t)
+      }
+      else out.push(t)
       if (out.length > this.limits.maxArgumentTokens) throw new ExpansionError(`the body of \\begin{${name}} runs past ${this.limits.maxArgumentTokens} tokens`, owner.pos)
     }
   }
@@ -530,7 +540,7 @@ export class Expander {
    * the reader handed the macro (\BooleanTrue, \BooleanFalse, -NoValue-, or any value for
    * \IfNoValueTF); the chosen branch is pushed back. False (nothing consumed) otherwise.
    */
-  private expandConditional(t: Token, conditional: { test: 'boolean' | 'noValue' | 'value'; branches: 'TF' | 'T' | 'F' }): boolean {
+  private expandConditional(t: Token, conditional: { test: 'boolean' | 'noValue' | 'value', branches: 'TF' | 'T' | 'F' }): boolean {
     const next = this.peekRaw()
     if (!next || next.k === 'sp') return false
     const tested = this.readArgument(t)
@@ -543,7 +553,8 @@ export class Expander {
         return true
       }
       result = only.v === BOOLEAN_TRUE
-    } else {
+    }
+    else {
       const noValue = !!only && only.k === 'cs' && only.v === UNREAD_MACRO_PREFIX + NO_VALUE_NAME
       result = conditional.test === 'noValue' ? noValue : !noValue
     }
@@ -732,7 +743,7 @@ export function readDefinition(
     throw new ExpansionError(`\\${name} must be followed by a name in braces`, cmd.pos)
   }
   /** `[n][default]` after \newcommand{\name} or \newenvironment{name}. */
-  const readNewcommandArgs = (what: string): { params: number; args?: ArgumentSpec[] } => {
+  const readNewcommandArgs = (what: string): { params: number, args?: ArgumentSpec[] } => {
     const count = x.readOptional(cmd)
     if (!count) return { params: 0 }
     const digits = count.map(u => u.v).join('').trim()
@@ -904,7 +915,8 @@ export function parseArgumentSpec(spec: Token[], options: { environment?: boolea
       const u = toks[i]!
       if (u.k === 'ch' && u.v === '{') {
         if (depth++ === 0) continue
-      } else if (u.k === 'ch' && u.v === '}') {
+      }
+      else if (u.k === 'ch' && u.v === '}') {
         if (--depth === 0) {
           i++
           return inner
@@ -936,20 +948,24 @@ export function parseArgumentSpec(spec: Token[], options: { environment?: boolea
     else if (type === 'O') {
       const def = braced()
       if (def) arg = { kind: 'optional', default: def, ...(noSpace ? { noSpace } : {}) }
-    } else if (type === 's') arg = { kind: 'boolean', token: '*', ...(noSpace ? { noSpace } : {}) }
+    }
+    else if (type === 's') arg = { kind: 'boolean', token: '*', ...(noSpace ? { noSpace } : {}) }
     else if (type === 't') {
       const token = single()
       if (token) arg = { kind: 'boolean', token, ...(noSpace ? { noSpace } : {}) }
-    } else if (type === 'r' || type === 'R' || type === 'd' || type === 'D') {
+    }
+    else if (type === 'r' || type === 'R' || type === 'd' || type === 'D') {
       const open = single()
       const close = single()
       const def = type === 'R' || type === 'D' ? braced() : undefined
       if (open && close && (def || type === 'r' || type === 'd')) {
         // R's default stands in only after an error in LaTeX; a use without the delimiter is left unread.
-        arg = type === 'r' || type === 'R' ? { kind: 'required', open, close }
+        arg = type === 'r' || type === 'R'
+          ? { kind: 'required', open, close }
           : { kind: 'optional', open, close, ...(def ? { default: def } : {}), ...(noSpace ? { noSpace } : {}) }
       }
-    } else if (type === 'e' || type === 'E') {
+    }
+    else if (type === 'e' || type === 'E') {
       const tokens = braced()
       const defaults = type === 'E' ? braced() : []
       if (tokens && defaults) {
@@ -968,11 +984,13 @@ export function parseArgumentSpec(spec: Token[], options: { environment?: boolea
               group.push(w)
             }
             values.push(group)
-          } else values.push([u])
+          }
+          else values.push([u])
         }
         arg = { kind: 'embellishments', tokens: keys, defaults: keys.map((_, k) => values[k]) }
       }
-    } else if (type === 'v') arg = { kind: 'verbatim' }
+    }
+    else if (type === 'v') arg = { kind: 'verbatim' }
     else if (type === 'b' && options.environment && i === toks.length) arg = { kind: 'body' }
     if (!arg) return { unread: `argument type "${type}" is not followed` }
     noSpace = false

@@ -23,7 +23,7 @@ export interface MaskedSource {
   text: string
   comments: SourceComment[]
   /** Problems found while masking (an environment never closed), with offsets. */
-  problems: { offset: number; message: string }[]
+  problems: { offset: number, message: string }[]
 }
 
 /** Environments whose body is code or text shown as is: closed by the first matching \end. */
@@ -88,11 +88,13 @@ export function maskSource(src: string): MaskedSource {
       if (name === 'fi') {
         iffalseDepth--
         if (iffalseDepth === 0) hide(iffalseStart, j)
-      } else if (name === 'else' && iffalseDepth === 1) {
+      }
+      else if (name === 'else' && iffalseDepth === 1) {
         // \iffalse A \else B \fi typesets B; the lone \fi left behind is harmless.
         iffalseDepth = 0
         hide(iffalseStart, j)
-      } else if (name.startsWith('if')) iffalseDepth++
+      }
+      else if (name.startsWith('if')) iffalseDepth++
       continue
     }
     // Definitions come in file order and the scan only moves forward: one pointer, no search.
@@ -106,17 +108,20 @@ export function maskSource(src: string): MaskedSource {
     if (name === 'iffalse') {
       iffalseDepth = 1
       iffalseStart = i
-    } else if (inlineCode.has(name)) {
+    }
+    else if (inlineCode.has(name)) {
       const end = inlineCodeEnd(src, j, name === 'mintinline')
       if (end === undefined) continue
       hide(i, end)
       special.lastIndex = end
-    } else if (LAYOUT_COMMANDS.has(name)) {
+    }
+    else if (LAYOUT_COMMANDS.has(name)) {
       const end = layoutArgumentEnd(src, j, name === 'tikz')
       if (end === undefined) continue
       hide(i, end)
       special.lastIndex = end
-    } else if (name === 'begin') {
+    }
+    else if (name === 'begin') {
       const env = /^\s*\{([^{}\n]*)\}/.exec(src.slice(j, j + 80))
       const envName = env?.[1]!.trim()
       if (!envName || !(VERBATIM_ENVIRONMENTS.has(envName) || DRAWING_ENVIRONMENTS.has(envName))) continue
@@ -124,7 +129,8 @@ export function maskSource(src: string): MaskedSource {
       if (end === undefined) problems.push({ offset: i, message: `\\begin{${envName}} is never closed; the rest of the file is ignored` })
       hide(i, end ?? src.length)
       special.lastIndex = end ?? src.length
-    } else if (name === 'end' && /^\s*\{document\}/.test(src.slice(j, j + 20))) {
+    }
+    else if (name === 'end' && /^\s*\{document\}/.test(src.slice(j, j + 20))) {
       hide(i, src.length)
       special.lastIndex = src.length
     }
@@ -251,9 +257,9 @@ function layoutArgumentEnd(src: string, j: number, semicolonForm: boolean): numb
  * Names made to mean inline code: `\let\code=\lstinline`, `\let\v\verb`,
  * `\newcommand{\code}{\lstinline}`, `\def\code{\lstinline}` (outside comments).
  */
-function inlineCodeAliases(src: string): { name: string; start: number; end: number }[] {
+function inlineCodeAliases(src: string): { name: string, start: number, end: number }[] {
   if (!/\\(?:lstinline|verb|Verb|mintinline|spverb)\b/.test(src)) return []
-  const names: { name: string; start: number; end: number }[] = []
+  const names: { name: string, start: number, end: number }[] = []
   const code = INLINE_CODE_COMMANDS.join('|')
   const re = new RegExp(`\\\\(?:let\\s*\\\\([A-Za-z@]+)\\s*=?\\s*|(?:newcommand|renewcommand|providecommand)\\*?\\s*\\{\\s*\\\\([A-Za-z@]+)\\s*\\}\\s*\\{\\s*|def\\s*\\\\([A-Za-z@]+)\\s*\\{\\s*)\\\\(?:${code})(?![A-Za-z@])`, 'g')
   for (const m of src.matchAll(re)) {

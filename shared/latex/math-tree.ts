@@ -8,11 +8,11 @@
  */
 import { splitRuns, type Token } from './tokens'
 
-export type MathNode =
-  | { k: 'cs'; v: string; pos: number; end: number }
-  | { k: 'ch'; v: string; pos: number; end: number }
-  | { k: 'group'; children: MathNode[]; pos: number; end: number }
-  | { k: 'env'; name: string; children: MathNode[]; pos: number; end: number }
+export type MathNode
+  = | { k: 'cs', v: string, pos: number, end: number }
+    | { k: 'ch', v: string, pos: number, end: number }
+    | { k: 'group', children: MathNode[], pos: number, end: number }
+    | { k: 'env', name: string, children: MathNode[], pos: number, end: number }
 
 /** True if `n` is the character `v`: `isChar({ k: 'ch', v: '=', pos: 0, end: 1 }, '=') === true`. */
 export function isChar(n: MathNode | undefined, v: string): boolean {
@@ -41,9 +41,9 @@ export const MATRIX_ENVS = new Set(['matrix', 'pmatrix', 'bmatrix', 'Bmatrix', '
 export function buildMathTree(tokens: Token[]): MathNode[] {
   const toks = splitRuns(tokens).filter(t => t.k !== 'sp' && t.k !== 'par')
   const root: MathNode[] = []
-  const stack: { node: MathNode & { children: MathNode[] }; open: Token }[] = []
+  const stack: { node: MathNode & { children: MathNode[] }, open: Token }[] = []
   const top = () => (stack.length ? stack[stack.length - 1]!.node.children : root)
-  const readName = (i: number): { name: string; next: number } | undefined => {
+  const readName = (i: number): { name: string, next: number } | undefined => {
     const open = toks[i]
     if (!open || open.k !== 'ch' || open.v !== '{') return undefined
     let name = ''
@@ -63,11 +63,13 @@ export function buildMathTree(tokens: Token[]): MathNode[] {
       const g: MathNode & { children: MathNode[] } = { k: 'group', children: [], pos: t.pos, end: t.end }
       top().push(g)
       stack.push({ node: g, open: t })
-    } else if (t.k === 'ch' && t.v === '}') {
+    }
+    else if (t.k === 'ch' && t.v === '}') {
       const s = stack.pop()
       if (!s || s.node.k !== 'group') throw new MathSyntaxError('unbalanced braces: "}" without a matching "{"', t.pos)
       s.node.end = Math.max(s.node.end, t.end)
-    } else if (t.k === 'cs' && (t.v === 'begin' || t.v === 'end')) {
+    }
+    else if (t.k === 'cs' && (t.v === 'begin' || t.v === 'end')) {
       const r = readName(i + 1)
       if (!r) throw new MathSyntaxError(`\\${t.v} without an environment name`, t.pos)
       if (t.v === 'begin') {
@@ -83,7 +85,8 @@ export function buildMathTree(tokens: Token[]): MathNode[] {
             if (toks[i]!.v === '}' && toks[i]!.k === 'ch' && --depth === 0) break
           }
         }
-      } else {
+      }
+      else {
         const s = stack.pop()
         if (!s || s.node.k !== 'env' || s.node.name !== r.name) {
           throw new MathSyntaxError(`\\end{${r.name}} does not match ${s ? (s.node.k === 'env' ? `\\begin{${s.node.name}}` : 'an open "{"') : 'any \\begin'}`, t.pos)
@@ -91,11 +94,14 @@ export function buildMathTree(tokens: Token[]): MathNode[] {
         s.node.end = toks[r.next - 1]!.end
         i = r.next - 1
       }
-    } else if (t.k === 'cs' && SPACING.has(t.v)) {
+    }
+    else if (t.k === 'cs' && SPACING.has(t.v)) {
       continue
-    } else if (t.k === 'ch' && t.v === '~') {
+    }
+    else if (t.k === 'ch' && t.v === '~') {
       continue
-    } else {
+    }
+    else {
       top().push({ k: t.k === 'cs' ? 'cs' : 'ch', v: t.v, pos: t.pos, end: t.end })
     }
   }
@@ -110,7 +116,7 @@ export function buildMathTree(tokens: Token[]): MathNode[] {
 }
 
 /** Beamer and colour commands whose last argument is math that stays: `\alert<2>{s_{21}}` → `{s_{21}}`. */
-const DECORATIONS: Record<string, { overlay: boolean; dropped: number; kept: boolean }> = {
+const DECORATIONS: Record<string, { overlay: boolean, dropped: number, kept: boolean }> = {
   alert: { overlay: true, dropped: 0, kept: true },
   only: { overlay: true, dropped: 0, kept: true },
   uncover: { overlay: true, dropped: 0, kept: true },
@@ -233,7 +239,8 @@ export function splitRows(nodes: MathNode[]): MathRow[] {
         flat.push({ k: 'cs', v: '\\', pos: n.pos, end: n.pos })
         flatten(n.children)
         flat.push({ k: 'cs', v: '\\', pos: n.end, end: n.end })
-      } else flat.push(n)
+      }
+      else flat.push(n)
     }
   }
   flatten(nodes)
@@ -312,7 +319,7 @@ export interface Statement {
   /** Parts between relation symbols; an empty first part means the row continues the previous one. */
   parts: MathNode[][]
   /** relations[i] sits between parts[i] and parts[i+1]. */
-  relations: { rel: Relation; node: MathNode; name: string }[]
+  relations: { rel: Relation, node: MathNode, name: string }[]
 }
 
 /** Bracket depth after node `n`: ( [ and \left open, ) ] and \right close (never below 0). */
@@ -377,13 +384,16 @@ function toStatement(nodes: MathNode[]): Statement {
       rel = ':='
       name = ':='
       i++
-    } else if (depth === 0 && n.k === 'ch' && n.v === '=') {
+    }
+    else if (depth === 0 && n.k === 'ch' && n.v === '=') {
       rel = '='
       name = '='
-    } else if (depth === 0 && n.k === 'ch' && (n.v === '<' || n.v === '>')) {
+    }
+    else if (depth === 0 && n.k === 'ch' && (n.v === '<' || n.v === '>')) {
       rel = 'other'
       name = n.v
-    } else if (depth === 0 && n.k === 'cs' && OTHER_RELATIONS.has(n.v)) {
+    }
+    else if (depth === 0 && n.k === 'cs' && OTHER_RELATIONS.has(n.v)) {
       rel = n.v === 'coloneqq' ? ':=' : 'other'
       name = '\\' + n.v
       if (n.v === 'stackrel' || n.v === 'overset' || n.v === 'underset') i += 2
@@ -391,7 +401,8 @@ function toStatement(nodes: MathNode[]): Statement {
     if (rel) {
       relations.push({ rel, node: n, name })
       parts.push([])
-    } else parts[parts.length - 1]!.push(n)
+    }
+    else parts[parts.length - 1]!.push(n)
   }
   return { parts, relations }
 }
@@ -403,7 +414,8 @@ export function renderNodes(nodes: MathNode[]): string {
     if (n.k === 'cs') {
       const word = /^[A-Za-z@]+$/.test(n.v)
       out += '\\' + n.v + (word ? ' ' : '')
-    } else if (n.k === 'ch') out += n.v
+    }
+    else if (n.k === 'ch') out += n.v
     else if (n.k === 'group') out += '{' + renderNodes(n.children).trim() + '}'
     else out += `\\begin{${n.name}}` + renderNodes(n.children) + `\\end{${n.name}}`
   }
@@ -411,7 +423,7 @@ export function renderNodes(nodes: MathNode[]): string {
 }
 
 /** Smallest start and largest end offset of nodes. */
-export function spanOf(nodes: MathNode[]): { pos: number; end: number } | undefined {
+export function spanOf(nodes: MathNode[]): { pos: number, end: number } | undefined {
   if (!nodes.length) return undefined
   let pos = Infinity
   let end = -Infinity

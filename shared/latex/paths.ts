@@ -15,7 +15,8 @@ export function normalizeBundlePath(path: string): string | undefined {
     if (seg === '..') {
       if (out.length === 0) return undefined
       out.pop()
-    } else out.push(seg)
+    }
+    else out.push(seg)
   }
   return out.length ? out.join('/') : undefined
 }

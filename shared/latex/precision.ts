@@ -11,14 +11,14 @@ import { isChar, renderNodes, type MathNode } from './math-tree'
 import { isUnreadMacroReason } from './macros'
 
 /** What to do with one `lhs = rhs` step before any claim is made. */
-export type StepJudgement =
-  | { type: 'claim' }
+export type StepJudgement
+  = | { type: 'claim' }
   /** Not an assertion at all (a setting, a definition, a count in prose). */
-  | { type: 'silent' }
+    | { type: 'silent' }
   /** Possibly an assertion, but the reader cannot be sure what it says. */
-  | { type: 'notRead'; reason: string }
+    | { type: 'notRead', reason: string }
   /** An assertion about a known object that Scholium cannot check. */
-  | { type: 'unsupported'; reason: string }
+    | { type: 'unsupported', reason: string }
 
 /** Words right before inline math that make it a setting or a definition ("Setting $x_2=-y_2$"). */
 const DEFINING_LEAD_IN = /(?:^|[^a-z])(let|letting|set|setting|put|putting|write|writes|written|denote|denotes|denoting|define|defines|defining|substitute|substituting|substitution|specialize|specializing|specialise|specialising|specialization|take|taking|with|where|assume|assuming|suppose|fix|fixing|given|choose|choosing|if|when|whenever|for|at|evaluate|evaluating|plug|plugging|replace|replacing)(?:\s+(?:that|again|now|instead|in|by))?\s*$/i
@@ -75,7 +75,7 @@ export function isLoneSymbol(nodes: MathNode[]): boolean {
   const letter = (head.k === 'ch' && /^[a-zA-Z]$/.test(head.v)) || (head.k === 'cs' && (GREEK.test(head.v) || head.v === 'ell'))
   if (!letter) return false
   // A prime right after the letter (λ'_j, w') belongs to its name.
-  const from = isChar(nodes[1], "'") ? 2 : 1
+  const from = isChar(nodes[1], '\'') ? 2 : 1
   for (let i = from; i < nodes.length; i += 2) {
     if (!(isChar(nodes[i], '_') || isChar(nodes[i], '^')) || !nodes[i + 1]) return false
   }
@@ -157,9 +157,9 @@ const DRAWN_TABLEAU = new Set(['ytableaushort', 'young', 'youngtab', 'Young', 't
 /** True if a tableau is drawn in the nodes: `s_{\ytableaushort{12,3}}`, `\begin{ytableau}…`. */
 function containsDrawnTableau(nodes: MathNode[]): boolean {
   return nodes.some(n =>
-    (n.k === 'cs' && DRAWN_TABLEAU.has(n.v)) ||
-    (n.k === 'env' && (n.name === 'ytableau' || containsDrawnTableau(n.children))) ||
-    (n.k === 'group' && containsDrawnTableau(n.children)))
+    (n.k === 'cs' && DRAWN_TABLEAU.has(n.v))
+    || (n.k === 'env' && (n.name === 'ytableau' || containsDrawnTableau(n.children)))
+    || (n.k === 'group' && containsDrawnTableau(n.children)))
 }
 
 /** Set-builder braces (`\{`, `\}`, `\lbrace`, `\rbrace`) and the angle brackets of generators (`\langle s_1, s_2 \rangle`). */
@@ -181,7 +181,7 @@ function isInsideSet(lhsNodes: MathNode[], rhsNodes: MathNode[]): boolean {
     }
     return { depth, min }
   }
-  const unbalanced = (b: { depth: number; min: number }) => b.depth !== 0 || b.min < 0
+  const unbalanced = (b: { depth: number, min: number }) => b.depth !== 0 || b.min < 0
   return unbalanced(balance(lhsNodes)) || unbalanced(balance(rhsNodes))
 }
 
@@ -198,7 +198,8 @@ function isTuple(nodes: MathNode[]): boolean {
     else if (isChar(n, ')') || isChar(n, ']')) {
       // `(a)(b)`: the first parenthesis closes before the end, so the side is no single tuple.
       if (--depth < 0) return false
-    } else if (depth === 0 && isChar(n, ',')) comma = true
+    }
+    else if (depth === 0 && isChar(n, ',')) comma = true
   }
   return comma && depth === 0
 }

@@ -47,7 +47,7 @@ export class ReaderRun {
    * Grassmannian named by the text (ends with its environment or section; null when the text named
    * two, which also hides the tag's) and by a tag (until the next tag).
    */
-  private textSetting: { setting: GrassmannianSetting | null; depth: number } | undefined
+  private textSetting: { setting: GrassmannianSetting | null, depth: number } | undefined
   private tagSetting: GrassmannianSetting | undefined
   /** Depth of open non-math environments, for the end of a text setting. */
   private envDepth = 0
@@ -116,7 +116,8 @@ export class ReaderRun {
       let t: Token | undefined
       try {
         t = x.next()
-      } catch (e) {
+      }
+      catch (e) {
         if (!(e instanceof ExpansionError)) throw e
         this.warn('macro', e.message, path, e.pos)
         x.clearPending()
@@ -146,16 +147,19 @@ export class ReaderRun {
             if (arg && arg.v === '{') x.readGroupBody(arg, t)
           }
           this.readRegion(file, x, t, { kind: 'env', name: env }, env !== 'math')
-        } else if (env && TABLE_ENVIRONMENTS.has(env)) this.readTextTable(file, x, t, env)
+        }
+        else if (env && TABLE_ENVIRONMENTS.has(env)) this.readTextTable(file, x, t, env)
         else if (env) {
           this.envDepth++
           if (this.isScoping(env)) this.bindings.openEnvironment(env)
         }
-      } else if (name === 'end') {
+      }
+      else if (name === 'end') {
         const env = readEnvName(x)
         if (env && !MATH_ENVIRONMENTS.has(env) && !TABLE_ENVIRONMENTS.has(env)) this.endEnvironment()
         if (env && this.isScoping(env)) this.bindings.closeEnvironment(env)
-      } else if (name === 'par') this.bindings.endParagraph()
+      }
+      else if (name === 'par') this.bindings.endParagraph()
       else if (SECTIONING.has(name)) {
         this.bindings.clear()
         this.textSetting = undefined
@@ -193,14 +197,18 @@ export class ReaderRun {
     if (d.type === 'grassmannian') {
       this.tagSetting = d.setting ?? undefined
       this.textSetting = undefined
-    } else if (d.type === 'set') {
+    }
+    else if (d.type === 'set') {
       for (const id of d.conventions) this.conventions.set(axisOfConvention(id)!, id)
-    } else if (d.type === 'means') {
+    }
+    else if (d.type === 'means') {
       this.notation.set(d.macro, d.object)
       this.protectedNames.add(d.macro)
-    } else if (d.type === 'parameters') {
+    }
+    else if (d.type === 'parameters') {
       for (const name of d.names) this.parameters.add(name)
-    } else if (d.type === 'chern') {
+    }
+    else if (d.type === 'chern') {
       this.chern.set(d.letter, d.family)
     }
   }
@@ -219,7 +227,8 @@ export class ReaderRun {
       }
       this.definitionCount++
       this.macroTable.add(def)
-    } catch (e) {
+    }
+    catch (e) {
       if (!(e instanceof ExpansionError)) throw e
       this.warn('macro', `${e.message} (definition ignored)`, file.path, e.pos)
       x.clearPending()
@@ -249,7 +258,8 @@ export class ReaderRun {
     let target: string | undefined
     try {
       target = this.readFileArgument(x, cmd)
-    } catch (e) {
+    }
+    catch (e) {
       if (!(e instanceof ExpansionError)) throw e
       this.warn('syntax', e.message, file.path, e.pos)
       return
@@ -268,7 +278,8 @@ export class ReaderRun {
         const path = this.sources.openPackage(name, extension, file.path, this.mainFile, chain, depth)
         if (path) this.processFile(path, depth + 1, chain)
       }
-    } catch (e) {
+    }
+    catch (e) {
       if (!(e instanceof ExpansionError)) throw e
       this.warn('syntax', e.message, file.path, e.pos)
     }
@@ -294,7 +305,8 @@ export class ReaderRun {
     const savedPos = expander.tokenizer.pos
     try {
       skipTableArguments(expander, env, open)
-    } catch (e) {
+    }
+    catch (e) {
       if (!(e instanceof ExpansionError)) throw e
       expander.clearPending()
       expander.tokenizer.pos = savedPos

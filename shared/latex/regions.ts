@@ -33,7 +33,7 @@ export const MATH_ENVIRONMENTS = new Set([
 export const SINGLE_EQUATION_ENVS = new Set(['equation', 'equation*', 'multline', 'multline*', 'displaymath', 'dmath', 'dmath*'])
 
 /** How a region ends: `$`, `$$`, a control sequence (`\]`, `\)`) or `\end{name}`. */
-export type Closer = { kind: '$' } | { kind: '$$' } | { kind: 'cs'; name: string } | { kind: 'env'; name: string }
+export type Closer = { kind: '$' } | { kind: '$$' } | { kind: 'cs', name: string } | { kind: 'env', name: string }
 
 /** One piece of math, ready for the statements stage. */
 export interface MathRegion {
@@ -52,7 +52,7 @@ export interface MathRegion {
 export interface CollectedMath {
   tokens: Token[]
   end: number
-  failure?: { message: string; pos: number }
+  failure?: { message: string, pos: number }
 }
 
 /** How the opener of a region is called in messages: `$`, `\[`, `\begin{align}`. */
@@ -80,7 +80,8 @@ export function collectMath(expander: Expander, open: Token, closer: Closer, max
     let token: Token | undefined
     try {
       token = expand ? expander.next() : expander.nextRaw()
-    } catch (e) {
+    }
+    catch (e) {
       if (!(e instanceof ExpansionError)) throw e
       failure ??= { message: e.message, pos: e.pos }
       expander.clearPending()
@@ -105,12 +106,14 @@ export function collectMath(expander: Expander, open: Token, closer: Closer, max
         end = closer.kind === '$' && token.v === '$$' ? token.pos + 1 : token.end
         break
       }
-    } else if (closer.kind === 'cs') {
+    }
+    else if (closer.kind === 'cs') {
       if (token.k === 'cs' && token.v === closer.name) {
         end = token.end
         break
       }
-    } else if (token.k === 'cs' && (token.v === 'end' || token.v === 'begin')) {
+    }
+    else if (token.k === 'cs' && (token.v === 'end' || token.v === 'begin')) {
       const nameTokens: Token[] = []
       const env = readEnvName(expander, nameTokens)
       if (env === closer.name && token.v === 'begin') sameEnvDepth++

@@ -68,7 +68,8 @@ export function joinContinuedRows(rows: MathRow[]): MathRow[] {
       // "a + \\ + b": the sign repeated at the start of the new line is the same sign.
       const repeated = previousEndsWithSign && isSign(nodes[0]) && last!.k === 'ch' && nodes[0]!.k === 'ch' && last!.v === nodes[0]!.v
       out[out.length - 1] = { nodes: [...previousNodes, ...nodes.slice(repeated ? 1 : 0)], label: previous.label ?? row.label }
-    } else out.push({ ...row, nodes })
+    }
+    else out.push({ ...row, nodes })
     const joined = out[out.length - 1]!.nodes
     previousEndsWithSign = isSign(joined[joined.length - 1])
   }

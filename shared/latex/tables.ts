@@ -69,8 +69,8 @@ export interface TableStep {
   bindings?: ReadonlyMap<string, ContextValue>
 }
 
-export type TableReading =
-  | {
+export type TableReading
+  = | {
     kind: 'index' | 'multiplication'
     steps: TableStep[]
     /** Rows with math that could not be read (an index that is not a permutation, …). */
@@ -120,10 +120,12 @@ export function textTableGrid(file: SourceFile, tokens: Token[], pos: number, en
     if (atTop && token.k === 'ch' && token.v === '&') {
       cells.push(cell)
       cell = []
-    } else if (atTop && token.k === 'cs' && ROW_ENDS.has(token.v)) {
+    }
+    else if (atTop && token.k === 'cs' && ROW_ENDS.has(token.v)) {
       endRow()
       i = skipRowEndArguments(tokens, i)
-    } else cell.push(token)
+    }
+    else cell.push(token)
   }
   endRow()
   return { file, rows, pos, end, display: false }
@@ -262,7 +264,8 @@ function textCell(file: SourceFile, raw: Token[]): TableCell {
   try {
     if (regions.length === 1 && outside.length === 0) nodes = buildMathTree(regions[0]!.tokens)
     else if (regions.length === 0 && outside.length > 0 && outside.every(t => t.k === 'ch' && BARE_INDEX.test(t.v))) nodes = buildMathTree(outside)
-  } catch (e) {
+  }
+  catch (e) {
     if (!(e instanceof MathSyntaxError)) throw e
   }
   return { nodes: nodes?.length ? nodes : undefined, regions, filled: content.length > 0, pos, end }
@@ -276,7 +279,7 @@ export function arrayTableGrid(file: SourceFile, env: MathNode & { k: 'env' }): 
   const rows: TableRow[] = []
   let cells: MathNode[][] = [[]]
   const endRow = () => {
-    const built = cells.map(nodes => {
+    const built = cells.map((nodes) => {
       const span = spanOf(nodes)
       return { nodes: nodes.length ? nodes : undefined, regions: [], filled: nodes.length > 0, pos: span?.pos ?? env.pos, end: span?.end ?? env.pos }
     })
@@ -297,7 +300,8 @@ export function arrayTableGrid(file: SourceFile, env: MathNode & { k: 'env' }): 
         while (j < children.length && !isChar(children[j], ']')) j++
         if (j < children.length) i = j
       }
-    } else if (isChar(node, '&')) cells.push([])
+    }
+    else if (isChar(node, '&')) cells.push([])
     else if (node.k === 'cs' && ARRAY_RULES.has(node.v)) continue
     else if (node.k === 'cs' && node.v === 'cline' && children[i + 1]?.k === 'group') i++
     else cells[cells.length - 1]!.push(node)
@@ -417,7 +421,7 @@ function readTransposedIndexTable(grid: TableGrid, header: TableRow, body: Table
 }
 
 /** A head cell `$\mu = (2,1)$`: the letter and its value's nodes; a bare `$(2,1)$` gives only the value. */
-function headValue(nodes: MathNode[] | undefined): { letter?: string; value: MathNode[] } | undefined {
+function headValue(nodes: MathNode[] | undefined): { letter?: string, value: MathNode[] } | undefined {
   if (!nodes) return undefined
   const statements = splitStatements(nodes)
   if (statements.length !== 1) return undefined
@@ -568,7 +572,8 @@ function readIndexValue(nodes: MathNode[], family: 'permutation' | 'partition' |
     if (family === 'partition') return { kind: 'partition', parts: readPartition(nodes, ctx, new Map()) }
     const text = nodes.map(n => (n.k === 'ch' ? n.v : '?')).join('')
     return /^[0-9]{1,6}$/.test(text) ? { kind: 'integer', value: Number(text) } : undefined
-  } catch (e) {
+  }
+  catch (e) {
     if (e instanceof ParseFail) return undefined
     throw e
   }
@@ -580,7 +585,7 @@ function withBinding(bindings: ReadonlyMap<string, ContextValue>, name: string, 
 
 /** True if the letter (`w`, `\lambda`) occurs anywhere in the nodes. */
 function mentionsSymbol(nodes: MathNode[], name: string): boolean {
-  return nodes.some(node => {
+  return nodes.some((node) => {
     if (node.k === 'group' || node.k === 'env') return mentionsSymbol(node.children, name)
     return node.k === 'cs' ? '\\' + node.v === name : node.v === name
   })

@@ -28,16 +28,16 @@ import { chernFromTagWords, type ChernFamily } from './notation/back-stable'
 export const NOTATION_OBJECTS = ['schubert', 'grothendieck', 'stanley', 'schur', 'elementary', 'complete', 'monomial', 'powersum'] as const
 export type NotationObject = (typeof NOTATION_OBJECTS)[number]
 
-export type TagDirective =
-  | { type: 'skip' }
-  | { type: 'claim'; kind?: ClaimKind }
-  | { type: 'use'; conventions: ConventionId[] }
-  | { type: 'set'; conventions: ConventionId[] }
-  | { type: 'means'; macro: string; object: NotationObject }
+export type TagDirective
+  = | { type: 'skip' }
+    | { type: 'claim', kind?: ClaimKind }
+    | { type: 'use', conventions: ConventionId[] }
+    | { type: 'set', conventions: ConventionId[] }
+    | { type: 'means', macro: string, object: NotationObject }
   /** `in Gr(2,4)`, `in QH Gr(2,5)`; `setting: null` for `in Sym`. */
-  | { type: 'grassmannian'; setting: GrassmannianSetting | null }
-  | { type: 'parameters'; names: string[] }
-  | { type: 'chern'; letter: string; family: ChernFamily }
+    | { type: 'grassmannian', setting: GrassmannianSetting | null }
+    | { type: 'parameters', names: string[] }
+    | { type: 'chern', letter: string, family: ChernFamily }
 
 export interface ParsedTag {
   directives: TagDirective[]
@@ -68,14 +68,16 @@ export function parseTag(text: string): ParsedTag {
     if (ring) {
       if ('error' in ring) errors.push(ring.error)
       else directives.push({ type: 'grassmannian', setting: ring.setting })
-    } else if (lower === 'skip' && words.length === 1) directives.push({ type: 'skip' })
+    }
+    else if (lower === 'skip' && words.length === 1) directives.push({ type: 'skip' })
     else if (lower === 'claim') {
       const kindWord = words[1]
       if (words.length > 2) errors.push(`"claim" takes at most one kind, got "${words.slice(1).join(' ')}"`)
       else if (kindWord === undefined) directives.push({ type: 'claim' })
       else if ((CLAIM_KINDS as readonly string[]).includes(kindWord)) directives.push({ type: 'claim', kind: kindWord as ClaimKind })
       else errors.push(`unknown claim kind "${kindWord}" (known: ${CLAIM_KINDS.join(', ')})`)
-    } else if (lower === 'use' || lower === 'set') {
+    }
+    else if (lower === 'use' || lower === 'set') {
       const ids: ConventionId[] = []
       for (const w of words.slice(1)) {
         if (axisOfConvention(w)) ids.push(w as ConventionId)
@@ -83,7 +85,8 @@ export function parseTag(text: string): ParsedTag {
       }
       if (words.length === 1) errors.push(`"${lower}" needs at least one convention id`)
       if (ids.length) directives.push({ type: lower, conventions: ids })
-    } else if (lower === 'parameters' || lower === 'parameter') {
+    }
+    else if (lower === 'parameters' || lower === 'parameter') {
       const names: string[] = []
       for (const w of words.slice(1)) {
         const name = w.replace(/^\\/, '')
@@ -93,18 +96,22 @@ export function parseTag(text: string): ParsedTag {
       }
       if (words.length === 1) errors.push('"parameters" needs at least one name')
       if (names.length) directives.push({ type: 'parameters', names })
-    } else if (lower === 'chern') {
+    }
+    else if (lower === 'chern') {
       const chern = chernFromTagWords(words.slice(1))
       if ('error' in chern) errors.push(chern.error)
       else directives.push({ type: 'chern', ...chern })
-    } else if (head.startsWith('\\') && words[1]?.toLowerCase() === 'means') {
+    }
+    else if (head.startsWith('\\') && words[1]?.toLowerCase() === 'means') {
       const obj = (words[2] ?? '').toLowerCase().replace(/-/g, '')
       const macro = head.slice(1)
       if (!/^[A-Za-z@]+$/.test(macro)) errors.push(`"${head}" is not a macro name`)
       else if ((NOTATION_OBJECTS as readonly string[]).includes(obj) && words.length === 3) {
         directives.push({ type: 'means', macro, object: obj as NotationObject })
-      } else errors.push(`"${head} means …" expects one of: ${NOTATION_OBJECTS.join(', ')}`)
-    } else errors.push(`unknown directive "${part.trim()}"`)
+      }
+      else errors.push(`"${head} means …" expects one of: ${NOTATION_OBJECTS.join(', ')}`)
+    }
+    else errors.push(`unknown directive "${part.trim()}"`)
   }
   return { directives, errors }
 }

@@ -107,7 +107,8 @@ export function splitRuns(tokens: Token[]): Token[] {
       for (let i = 0; i < t.v.length; i++) {
         out.push({ k: 'ch', v: t.v[i]!, pos: fromFile ? t.pos + i : t.pos, end: fromFile ? t.pos + i + 1 : t.end, depth: t.depth })
       }
-    } else out.push(t)
+    }
+    else out.push(t)
   }
   return out
 }
@@ -121,7 +122,8 @@ export function renderTokens(tokens: readonly Token[]): string {
       out += '\\' + t.v
       const next = tokens[i + 1]
       if (/^[A-Za-z@]/.test(t.v) && next && next.k !== 'sp' && next.k !== 'par' && /^[A-Za-z@]/.test(next.v) && next.k !== 'cs') out += ' '
-    } else if (t.k === 'sp' || t.k === 'par') out += ' '
+    }
+    else if (t.k === 'sp' || t.k === 'par') out += ' '
     else if (t.k === 'param') out += '#' + t.v
     else out += t.v
   }

@@ -41,7 +41,7 @@ export interface BackStableTerm {
 }
 
 /** Elements u ≤ w in right weak order (prefixes of reduced words), with v = u⁻¹ w. */
-export function lengthAdditiveFactorizations(w: Permutation): { u: Permutation; v: Permutation }[] {
+export function lengthAdditiveFactorizations(w: Permutation): { u: Permutation, v: Permutation }[] {
   const seen = new Map<string, Permutation>()
   const stack = [w.trimmed()]
   seen.set(stack[0]!.key, stack[0]!)
@@ -135,4 +135,3 @@ export function doubleBackStableTruncation(terms: readonly DoubleBackStableTerm[
   }
   return total
 }
-

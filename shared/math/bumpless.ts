@@ -66,7 +66,8 @@ function walkBumpless(w: Permutation, meter: BudgetMeter, visit: (tiles: Bumples
         row[c - 1] = 'blank'
         out[c] = 0
         col(c + 1, 0)
-      } else if (active === 0) {
+      }
+      else if (active === 0) {
         if (need[p]) {
           row[c - 1] = 'vertical'
           out[c] = p
@@ -77,7 +78,8 @@ function walkBumpless(w: Permutation, meter: BudgetMeter, visit: (tiles: Bumples
           out[c] = 0
           col(c + 1, p)
         }
-      } else if (p === 0) {
+      }
+      else if (p === 0) {
         row[c - 1] = 'horizontal'
         out[c] = 0
         col(c + 1, active)
@@ -86,7 +88,8 @@ function walkBumpless(w: Permutation, meter: BudgetMeter, visit: (tiles: Bumples
           out[c] = active
           col(c + 1, 0)
         }
-      } else {
+      }
+      else {
         const pair = p * (n + 1) + active
         const rev = active * (n + 1) + p
         if (crossed[pair] || crossed[rev]) return
@@ -109,7 +112,7 @@ function walkBumpless(w: Permutation, meter: BudgetMeter, visit: (tiles: Bumples
 export function bumplessPipeDreams(w: Permutation, budget?: Budget | BudgetMeter): BumplessPipeDream[] {
   const meter = toMeter(budget)
   const out: BumplessPipeDream[] = []
-  walkBumpless(w, meter, tiles => {
+  walkBumpless(w, meter, (tiles) => {
     const copy = tiles.map(r => r.slice())
     const blanks: [number, number][] = []
     copy.forEach((r, i) => r.forEach((tile, j) => { if (tile === 'blank') blanks.push([i + 1, j + 1]) }))
@@ -120,11 +123,10 @@ export function bumplessPipeDreams(w: Permutation, budget?: Budget | BudgetMeter
 }
 
 /** Number of BPDs of w. 'identity' (default) uses #BPD(w) = S_w(1,…,1) via the transition recursion; 'walk' counts by enumeration without storing. */
-export function countBumplessPipeDreams(w: Permutation, options: { method?: 'identity' | 'walk'; budget?: Budget | BudgetMeter } = {}): bigint {
+export function countBumplessPipeDreams(w: Permutation, options: { method?: 'identity' | 'walk', budget?: Budget | BudgetMeter } = {}): bigint {
   const meter = toMeter(options.budget)
   if ((options.method ?? 'identity') === 'identity') return schubertAtOnes(w, meter)
   let count = 0n
   walkBumpless(w, meter, () => { count++ })
   return count
 }
-

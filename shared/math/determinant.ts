@@ -46,7 +46,7 @@ export function determinant(matrix: readonly (readonly Polynomial[])[], budget?:
 }
 
 /** Whether f(x; y) is supersymmetric in x_1..x_p and y_1..y_q (see module header). */
-export function isSupersymmetric(f: Polynomial, options: { xCount?: number; yCount?: number; substitution?: 'x1=-y1' | 'x1=y1' } = {}): boolean {
+export function isSupersymmetric(f: Polynomial, options: { xCount?: number, yCount?: number, substitution?: 'x1=-y1' | 'x1=y1' } = {}): boolean {
   const p = options.xCount ?? f.maxIndex('x')
   const q = options.yCount ?? f.maxIndex('y')
   if (f.maxIndex('x') > p || f.maxIndex('y') > q) return false

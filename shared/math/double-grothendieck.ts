@@ -206,7 +206,7 @@ export function checkBetaZeroSpecialisation(w: Permutation, normalisation: Groth
  * Peels the lowest-degree part in the Schubert basis, since G^β_w = S_w + (higher degree).
  * `maxDegree` bounds the search (NotInSpanError beyond it).
  */
-export function grothendieckExpansion(f: Polynomial, beta = -1, options: { maxDegree?: number; budget?: Budget | BudgetMeter } = {}): SchubertCombination {
+export function grothendieckExpansion(f: Polynomial, beta = -1, options: { maxDegree?: number, budget?: Budget | BudgetMeter } = {}): SchubertCombination {
   checkBeta(beta)
   const meter = toMeter(options.budget)
   const cap = options.maxDegree ?? 64
@@ -232,7 +232,7 @@ export function grothendieckProduct(u: Permutation, v: Permutation, beta = -1, b
 }
 
 /** G_u G_v with β formal: each w with its integer c and the power of β, c^w_{uv}(β) = c · β^{power}. */
-export function grothendieckProductFormal(u: Permutation, v: Permutation, budget?: Budget | BudgetMeter): { permutation: Permutation; coefficient: Coefficient; betaPower: number }[] {
+export function grothendieckProductFormal(u: Permutation, v: Permutation, budget?: Budget | BudgetMeter): { permutation: Permutation, coefficient: Coefficient, betaPower: number }[] {
   const base = u.length() + v.length()
   return [...grothendieckProduct(u, v, 1, budget)].map(([key, c]) => {
     const w = permutationFromKey(key)

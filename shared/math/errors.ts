@@ -6,14 +6,14 @@
  * "the computation is too large" from "the claim is outside the span".
  */
 
-export type MathErrorCode =
-  | 'PARSE'
-  | 'INVALID_ARGUMENT'
-  | 'TOO_LARGE'
-  | 'ABORTED'
-  | 'OVERFLOW'
-  | 'NOT_IN_SPAN'
-  | 'NOT_SYMMETRIC'
+export type MathErrorCode
+  = | 'PARSE'
+    | 'INVALID_ARGUMENT'
+    | 'TOO_LARGE'
+    | 'ABORTED'
+    | 'OVERFLOW'
+    | 'NOT_IN_SPAN'
+    | 'NOT_SYMMETRIC'
 
 /** Base class of all engine errors; `code` is stable across releases. */
 export class MathError extends Error {

@@ -57,7 +57,6 @@ function boxPartition(lambda: readonly number[], k: number, n: number): Partitio
   return lam
 }
 
-
 /** σ_λ · σ_μ in H*(Gr(k,n)); e.g. σ_1 · σ_1 = σ_2 + σ_{11} on Gr(2,4). */
 export function grassmannianProduct(lambda: readonly number[], mu: readonly number[], k: number, n: number, budget?: Budget | BudgetMeter): SchurCombination {
   const lam = boxPartition(lambda, k, n)
@@ -193,7 +192,7 @@ export function quantumEntries(c: QuantumCombination): QuantumTerm[] {
  * Rim-hook reduction of s_ν (ℓ(ν) ≤ k) to ± q^d σ_ρ with ρ in the k × (n−k) box, or null when
  * s_ν vanishes in QH*(Gr(k,n)); e.g. ν = (3,1) on Gr(2,4) gives +q σ_∅.
  */
-export function rimHookReduce(nu: readonly number[], k: number, n: number): { sign: 1 | -1; qDegree: number; partition: Partition } | null {
+export function rimHookReduce(nu: readonly number[], k: number, n: number): { sign: 1 | -1, qDegree: number, partition: Partition } | null {
   checkGrassmannian(k, n)
   const v = toPartition(nu)
   if (v.length > k) return null

@@ -37,7 +37,7 @@ export function doubleGrothendieckFormal(w: Permutation, budget?: Budget | Budge
 }
 
 /** G^⊖_w(x; y) with β formal, as numerator / ∏_j (1 + βy_j)^{denominator[j−1]}; e.g. G^⊖_{21} = (x_1 − y_1)/(1 + βy_1). */
-export function doubleGrothendieckOminusFormal(w: Permutation, budget?: Budget | BudgetMeter): { numerator: ParametricPolynomial; denominator: number[] } {
+export function doubleGrothendieckOminusFormal(w: Permutation, budget?: Budget | BudgetMeter): { numerator: ParametricPolynomial, denominator: number[] } {
   // Cancelling (1 + y_j) at β = 1 is the same as cancelling (1 + βy_j) formally (homogenisation is multiplicative).
   const atOne = doubleGrothendieckOminus(w, 1, budget)
   return { numerator: ParametricPolynomial.series(BETA, betaCoefficients(atOne.numerator, w.length())), denominator: atOne.denominator }
@@ -50,7 +50,7 @@ export type FormalGrothendieckCombination = Map<string, ParametricPolynomial>
  * f ∈ ℤ[β][x] in the Grothendieck basis with β formal; e.g. G_{132}^2 ↦ G_{1423} + G_{231} + β G_{2413}.
  * Throws NotInSpanError when f involves y or another parameter, or the peeling passes `maxDegree`.
  */
-export function grothendieckExpansionFormal(f: ParametricPolynomial, options: { maxDegree?: number; budget?: Budget | BudgetMeter } = {}): FormalGrothendieckCombination {
+export function grothendieckExpansionFormal(f: ParametricPolynomial, options: { maxDegree?: number, budget?: Budget | BudgetMeter } = {}): FormalGrothendieckCombination {
   const meter = toMeter(options.budget)
   const cap = options.maxDegree ?? 32
   for (const name of f.parameterNames()) if (name !== BETA) throw new NotInSpanError(`the polynomial involves the parameter ${name}; the Grothendieck basis here is over ℤ[β]`)

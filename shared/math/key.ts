@@ -67,7 +67,8 @@ function demazureRecursion(
   let result: Polynomial
   if (i + 1 >= a.length) {
     result = Polynomial.monomial(a)
-  } else {
+  }
+  else {
     const b = a.slice()
     b[i] = a[i + 1]!
     b[i + 1] = a[i]!
@@ -105,13 +106,13 @@ function triangularExpansion(f: Polynomial, basis: (alpha: number[]) => Polynomi
  * A polynomial in x_1..x_n as Σ c_α κ_α; e.g. x_2 ↦ κ_{(0,1)} − κ_{(1)}.
  * With `within: n` a polynomial that involves x_{n+1} or later is refused (NotInSpanError).
  */
-export function keyExpansion(f: Polynomial, options: { within?: number; budget?: Budget | BudgetMeter } = {}): CompositionCombination {
+export function keyExpansion(f: Polynomial, options: { within?: number, budget?: Budget | BudgetMeter } = {}): CompositionCombination {
   const meter = toMeter(options.budget)
   return triangularExpansion(f, a => keyPolynomial(a, meter), options.within, 'key polynomials', meter)
 }
 
 /** A polynomial in x_1..x_n as Σ c_α A_α; e.g. x_1 + x_2 ↦ A_{(1)} + A_{(0,1)}. */
-export function atomExpansion(f: Polynomial, options: { within?: number; budget?: Budget | BudgetMeter } = {}): CompositionCombination {
+export function atomExpansion(f: Polynomial, options: { within?: number, budget?: Budget | BudgetMeter } = {}): CompositionCombination {
   const meter = toMeter(options.budget)
   return triangularExpansion(f, a => demazureAtom(a, meter), options.within, 'Demazure atoms', meter)
 }

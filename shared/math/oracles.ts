@@ -41,13 +41,13 @@ export function schubertByTransition(w: Permutation, budget?: Budget | BudgetMet
 }
 
 /** S_w(x; y) = Σ over reduced pipe dreams of ∏ over crosses (x_i − y_j); `double: false` gives S_w(x). */
-export function schubertFromPipeDreams(w: Permutation, options: { double?: boolean; budget?: Budget | BudgetMeter } = {}): Polynomial {
+export function schubertFromPipeDreams(w: Permutation, options: { double?: boolean, budget?: Budget | BudgetMeter } = {}): Polynomial {
   const meter = toMeter(options.budget)
   return sumOfCellProducts(pipeDreams(w, meter).map(pd => pd.crosses), options.double === true, meter)
 }
 
 /** S_w(x; y) = Σ over bumpless pipe dreams of ∏ over blanks (x_i − y_j); `double: false` gives S_w(x). */
-export function schubertFromBumpless(w: Permutation, options: { double?: boolean; budget?: Budget | BudgetMeter } = {}): Polynomial {
+export function schubertFromBumpless(w: Permutation, options: { double?: boolean, budget?: Budget | BudgetMeter } = {}): Polynomial {
   const meter = toMeter(options.budget)
   return sumOfCellProducts(bumplessPipeDreams(w, meter).map(bpd => bpd.blanks), options.double === true, meter)
 }

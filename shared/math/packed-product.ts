@@ -228,7 +228,7 @@ export function packedTransitionProduct(u: Permutation, v: Permutation, keys: Pa
   // First pass: how many times each node of the transition recursion is used, so that an
   // intermediate combination is dropped as soon as its last user has read it (keeps memory low).
   const uses = new Map<string, number>()
-  const keyOf = (line: readonly number[]): { key: string; trimmed: readonly number[] } => {
+  const keyOf = (line: readonly number[]): { key: string, trimmed: readonly number[] } => {
     const trimmed = trimFixedPoints(line)
     return { key: trimmed.join(','), trimmed }
   }

@@ -92,7 +92,8 @@ export class PackedContext {
             if (dense[nc] === 0) touched[nt++] = nc
             dense[nc] = dense[nc]! + c
           }
-        } else {
+        }
+        else {
           for (let k = 0; k < q - p; k++) {
             const nc = base + (q - 1 - k) * Ri + (p + k) * Rj
             if (dense[nc] === 0) touched[nt++] = nc

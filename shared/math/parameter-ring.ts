@@ -222,7 +222,7 @@ export interface ParametricDifference {
   equal: boolean
   missing: ParametricTerm[]
   extra: ParametricTerm[]
-  wrongCoefficient: { parameters: ParameterExponents; x: number[]; y: number[]; expected: Coefficient; actual: Coefficient }[]
+  wrongCoefficient: { parameters: ParameterExponents, x: number[], y: number[], expected: Coefficient, actual: Coefficient }[]
 }
 
 /** Compare two values part by part; e.g. `parametricDifference(computed, claimed).equal`. */

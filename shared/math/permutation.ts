@@ -19,11 +19,11 @@ import { toMeter, type Budget, type BudgetMeter } from './budget'
 import { addChecked } from './coefficient'
 
 /** Specs another module can build permutations from without strings. */
-export type PermutationSpec =
-  | { oneLine: readonly number[] }
-  | { cycles: readonly (readonly number[])[]; size?: number }
-  | { word: readonly number[]; size?: number }
-  | { longest: number }
+export type PermutationSpec
+  = | { oneLine: readonly number[] }
+    | { cycles: readonly (readonly number[])[], size?: number }
+    | { word: readonly number[], size?: number }
+    | { longest: number }
 
 /**
  * A one-line notation without its trailing fixed points: the same element of S_∞, in its shortest
@@ -291,7 +291,8 @@ export function parsePermutation(text: string, size?: number): Permutation {
     }
     try {
       return Permutation.fromCycles(cycles, size ?? 0)
-    } catch (e) {
+    }
+    catch (e) {
       throw new ParseError(`"${s}": ${(e as Error).message}`)
     }
   }
@@ -315,7 +316,8 @@ export function parsePermutation(text: string, size?: number): Permutation {
 function fromOneLineText(line: number[], text: string): Permutation {
   try {
     return Permutation.fromOneLine(line)
-  } catch {
+  }
+  catch {
     throw new ParseError(`"${text}" is not a permutation of 1..${line.length}`)
   }
 }
@@ -355,7 +357,7 @@ export function rank(w: Permutation, i: number, j: number): number {
 }
 
 /** Rank conditions on the essential set: each essential cell with its rank r_w(i, j). */
-export function rankConditions(w: Permutation): { row: number; column: number; rank: number }[] {
+export function rankConditions(w: Permutation): { row: number, column: number, rank: number }[] {
   return essentialSet(w).map(([i, j]) => ({ row: i, column: j, rank: rank(w, i, j) }))
 }
 

@@ -90,4 +90,3 @@ function build(n: number, crosses: [number, number][]): PipeDream {
 export function countPipeDreams(w: Permutation, budget?: Budget | BudgetMeter): bigint {
   return schubertAtOnes(w, budget)
 }
-

@@ -57,7 +57,7 @@ function expChar(e: number): string {
 }
 
 /** Decode a monomial key into exponent vectors; e.g. `decodeMonomial(encodeMonomial([1],[0,2]))`. */
-export function decodeMonomial(key: string): { x: number[]; y: number[] } {
+export function decodeMonomial(key: string): { x: number[], y: number[] } {
   const x: number[] = []
   const y: number[] = []
   let target = x
@@ -398,7 +398,7 @@ export interface PolynomialDifference {
   /** In actual, absent from expected. */
   extra: Term[]
   /** Present in both with different coefficients. */
-  wrongCoefficient: { x: number[]; y: number[]; expected: Coefficient; actual: Coefficient }[]
+  wrongCoefficient: { x: number[], y: number[], expected: Coefficient, actual: Coefficient }[]
 }
 
 /** Compare an expected polynomial with an actual one term by term; e.g. `polynomialDifference(claim, truth)`. */
@@ -422,7 +422,6 @@ export function polynomialDifference(expected: Polynomial, actual: Polynomial): 
     wrongCoefficient: sortTerms(wrong.map(w => ({ ...w, coefficient: w.expected }))).map(({ coefficient: _c, ...w }) => w),
   }
 }
-
 
 function keyDegree(k: string): number {
   let d = 0

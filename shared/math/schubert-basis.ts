@@ -28,7 +28,7 @@ export type SchubertCombination = Map<string, Coefficient>
 let keyOrder: Intl.Collator | undefined
 
 /** Sorted list form of a combination: longest permutations first, then by one-line. */
-export function combinationEntries(c: SchubertCombination): { permutation: Permutation; coefficient: Coefficient }[] {
+export function combinationEntries(c: SchubertCombination): { permutation: Permutation, coefficient: Coefficient }[] {
   // Length and key once per entry, not once per comparison: a product of thousands of terms is
   // sorted for every report (the collator orders as localeCompare does, at a fraction of its cost).
   return [...c]
@@ -67,7 +67,7 @@ function compareLeading(a: readonly number[], b: readonly number[]): number {
  * With `within: n` only S_w for w ∈ S_n are allowed; a polynomial outside that span (or one
  * involving y) is refused with NotInSpanError.
  */
-export function schubertExpansion(f: Polynomial, options: { within?: number; budget?: Budget | BudgetMeter } = {}): SchubertCombination {
+export function schubertExpansion(f: Polynomial, options: { within?: number, budget?: Budget | BudgetMeter } = {}): SchubertCombination {
   const meter = toMeter(options.budget)
   for (const k of f.terms.keys()) {
     if (decodeMonomial(k).y.length > 0) throw new NotInSpanError('the polynomial involves y-variables; the Schubert basis spans ℤ[x] only')
@@ -103,7 +103,7 @@ export type DoubleSchubertCombination = Map<string, Polynomial>
  * S_w(x; y) = S_w(x) + (terms of lower x-degree), so peeling the x-leading term (largest
  * x-degree, then last variable first) gives the coefficients c_w(y) exactly.
  */
-export function doubleSchubertExpansion(f: Polynomial, options: { within?: number; budget?: Budget | BudgetMeter } = {}): DoubleSchubertCombination {
+export function doubleSchubertExpansion(f: Polynomial, options: { within?: number, budget?: Budget | BudgetMeter } = {}): DoubleSchubertCombination {
   const meter = toMeter(options.budget)
   const rest = new Map(f.terms)
   const out: DoubleSchubertCombination = new Map()
@@ -152,7 +152,6 @@ function fromInternal(k: string): string {
   for (let i = 0; i < k.length; i++) vals.push(k.charCodeAt(i))
   return vals.join(',')
 }
-
 
 /** x_r · Σ c_w S_w, as a combination (internal keys). */
 function multiplyByVariable(r: number, comb: Map<string, Coefficient>, meter: BudgetMeter): Map<string, Coefficient> {
@@ -219,7 +218,7 @@ export function schubertProductByHorner(u: Permutation, v: Permutation, budget?:
   return out
 }
 
-interface Mono { e: number[]; c: number }
+interface Mono { e: number[], c: number }
 
 function pickPolynomialSide(u: Permutation, v: Permutation, meter: BudgetMeter): [Mono[], Permutation] {
   const pu = packedSchubert(u, meter)

@@ -24,7 +24,7 @@ import { PACKED_MAX_N, PackedContext, type PackedPolynomial } from './packed'
 import { toMeter, type Budget, type BudgetMeter } from './budget'
 
 /** Ascents i_1, i_2, … climbing from w to a dominant permutation (u = w s_{i_1} s_{i_2} ⋯), and the partition λ = code(u). */
-export function climbToDominant(w: Permutation): { steps: number[]; shape: number[] } {
+export function climbToDominant(w: Permutation): { steps: number[], shape: number[] } {
   const code = w.trimmed().lehmerCode()
   const steps: number[] = []
   let moved = true
@@ -54,7 +54,7 @@ function packedContext(n: number): PackedContext {
 }
 
 /** S_w in packed form (w trimmed, n = its size, n ≤ 12); internal fast path. */
-export function packedSchubert(w: Permutation, meter?: BudgetMeter): { context: PackedContext; poly: PackedPolynomial } {
+export function packedSchubert(w: Permutation, meter?: BudgetMeter): { context: PackedContext, poly: PackedPolynomial } {
   const t = w.trimmed()
   const n = Math.max(t.size, 1)
   const ctx = packedContext(n)
@@ -108,14 +108,14 @@ export class SchubertFamily {
     const ctx = packedContext(Math.max(n, 1))
     const fam = new SchubertFamily(n, ctx)
     const w0 = Permutation.longest(n).oneLine.slice()
-    let level: { line: number[]; poly: PackedPolynomial }[] = [
+    let level: { line: number[], poly: PackedPolynomial }[] = [
       { line: w0, poly: ctx.monomial(w0.map(v => v - 1)) },
     ]
     fam.packed.set(w0.join(','), level[0]!.poly)
     // Walk down the weak order level by level. A child c ≠ w0 is produced from exactly one
     // parent, c s_a with a the first ascent of c, so each S_c is computed once: S_c = ∂_a S_{c s_a}.
     while (level.length > 0) {
-      const next: { line: number[]; poly: PackedPolynomial }[] = []
+      const next: { line: number[], poly: PackedPolynomial }[] = []
       for (const { line, poly } of level) {
         for (let i = 1; i < n; i++) {
           if (line[i - 1]! < line[i]!) continue
@@ -199,7 +199,7 @@ export function schubertInvariants(w: Permutation, budget?: Budget | BudgetMeter
 }
 
 /** One step of the transition recursion, or undefined for the identity. */
-export function transitionStep(line0: readonly number[]): { r: number; v: number[]; others: number[][] } | undefined {
+export function transitionStep(line0: readonly number[]): { r: number, v: number[], others: number[][] } | undefined {
   const line = line0.slice()
   let r = 0
   for (let i = line.length - 1; i >= 1; i--) if (line[i - 1]! > line[i]!) { r = i; break }

@@ -40,7 +40,7 @@ export function containsPartition(lambda: readonly number[], mu: readonly number
  * s_{λ/μ} in the Schur basis; e.g. s_{21/1} = s_2 + s_{11}.
  * Empty when μ ⊄ λ; `maxRows` drops s_ν with ℓ(ν) > maxRows.
  */
-export function skewSchurExpansion(lambda: readonly number[], mu: readonly number[], options: { maxRows?: number; budget?: Budget | BudgetMeter } = {}): SchurCombination {
+export function skewSchurExpansion(lambda: readonly number[], mu: readonly number[], options: { maxRows?: number, budget?: Budget | BudgetMeter } = {}): SchurCombination {
   const meter = toMeter(options.budget)
   const lam = toPartition(lambda)
   const inner = toPartition(mu)

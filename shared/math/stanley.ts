@@ -24,7 +24,7 @@ import { toMeter, type Budget, type BudgetMeter } from './budget'
 /** F_w in the Schur basis; e.g. F_{21} = s_1, F_{2143} = s_2 + s_{11}. */
 export function stanleySymmetricFunction(
   w: Permutation,
-  options: { method?: 'transition' | 'limit'; extraVariables?: number; budget?: Budget | BudgetMeter } = {},
+  options: { method?: 'transition' | 'limit', extraVariables?: number, budget?: Budget | BudgetMeter } = {},
 ): SchurCombination {
   const meter = toMeter(options.budget)
   if (options.method === 'limit') {
@@ -47,7 +47,8 @@ export function stanleySymmetricFunction(
     let result: SchurCombination
     if (isGrassmannian(u)) {
       result = new Map([[partitionKey(u.lehmerCode().filter(c => c > 0).sort((a, b) => b - a)), 1]])
-    } else {
+    }
+    else {
       const step = transitionStep(normal)!
       result = new Map()
       const add = (c: SchurCombination): void => {

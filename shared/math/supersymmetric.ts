@@ -40,4 +40,3 @@ export function checkSupersymmetry(f: Polynomial, k: number, budget?: Budget | B
   }
   return { supersymmetric: true, message: `supersymmetric in ${sets}` }
 }
-

@@ -220,7 +220,7 @@ export function schurExpansion(f: Polynomial, n = f.maxIndex('x'), budget?: Budg
 }
 
 /** s_λ · s_μ as a Schur combination by the Littlewood–Richardson rule; `maxRows` drops ν with more rows. */
-export function schurProduct(lambda: readonly number[], mu: readonly number[], options: { maxRows?: number; budget?: Budget | BudgetMeter } = {}): SchurCombination {
+export function schurProduct(lambda: readonly number[], mu: readonly number[], options: { maxRows?: number, budget?: Budget | BudgetMeter } = {}): SchurCombination {
   const meter = toMeter(options.budget)
   const lam = toPartition(lambda)
   const m = toPartition(mu)
@@ -300,7 +300,7 @@ export function schurCombinationsEqual(a: SchurCombination, b: SchurCombination)
 }
 
 /** Sorted entries (largest partitions in lexicographic order first). */
-export function schurEntries(c: SchurCombination): { partition: Partition; coefficient: Coefficient }[] {
+export function schurEntries(c: SchurCombination): { partition: Partition, coefficient: Coefficient }[] {
   return [...c].map(([k, coefficient]) => ({ partition: partitionFromKey(k), coefficient }))
     .sort((a, b) => compareLex(b.partition, a.partition))
 }

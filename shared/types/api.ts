@@ -5,39 +5,39 @@
  */
 import type { UploadErrorCode } from './uploads'
 
-export type ApiErrorCode =
-  | 'invalid-input'
-  | 'not-signed-in'
-  | 'forbidden'
-  | 'not-found'
-  | 'email-taken'
-  | 'bad-credentials'
-  | 'rate-limited'
-  | UploadErrorCode // upload-<refusal code>, see shared/types/uploads.ts
-  | 'body-too-large'
-  | 'storage-unavailable'
-  | 'mail-inbox-unavailable'
-  | 'conflict'
-  | 'invitation-expired'
-  | 'invitation-used'
-  | 'invitation-other-address'
-  | 'already-member'
-  | 'owner-not-removable'
-  | 'mail-unavailable'
-  | 'cross-site-request'
-  | 'manuscript-submitted'
-  | 'referee-of-manuscript'
-  | ArxivFetchErrorCode
+export type ApiErrorCode
+  = | 'invalid-input'
+    | 'not-signed-in'
+    | 'forbidden'
+    | 'not-found'
+    | 'email-taken'
+    | 'bad-credentials'
+    | 'rate-limited'
+    | UploadErrorCode // upload-<refusal code>, see shared/types/uploads.ts
+    | 'body-too-large'
+    | 'storage-unavailable'
+    | 'mail-inbox-unavailable'
+    | 'conflict'
+    | 'invitation-expired'
+    | 'invitation-used'
+    | 'invitation-other-address'
+    | 'already-member'
+    | 'owner-not-removable'
+    | 'mail-unavailable'
+    | 'cross-site-request'
+    | 'manuscript-submitted'
+    | 'referee-of-manuscript'
+    | ArxivFetchErrorCode
 
 /** Why a "Fetch from arXiv" failed (server/arxiv/client.ts); nothing is stored when it does. */
-export type ArxivFetchErrorCode =
-  | 'arxiv-invalid-id'
-  | 'arxiv-not-found'
-  | 'arxiv-pdf-only'
-  | 'arxiv-rate-limited'
-  | 'arxiv-unavailable'
-  | 'arxiv-unreadable'
-  | 'arxiv-too-large'
+export type ArxivFetchErrorCode
+  = | 'arxiv-invalid-id'
+    | 'arxiv-not-found'
+    | 'arxiv-pdf-only'
+    | 'arxiv-rate-limited'
+    | 'arxiv-unavailable'
+    | 'arxiv-unreadable'
+    | 'arxiv-too-large'
 
 export interface ApiErrorData {
   code: ApiErrorCode

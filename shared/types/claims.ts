@@ -11,11 +11,11 @@
 import type { ConventionId } from './conventions'
 
 /** A permutation as written in the manuscript, e.g. `{ form: 'oneLine', entries: [2, 1, 4, 3] }`. */
-export type PermutationSpec =
-  | { form: 'oneLine'; entries: number[] }
-  | { form: 'cycles'; cycles: number[][] }
-  | { form: 'word'; letters: number[] }
-  | { form: 'longest'; n: number }
+export type PermutationSpec
+  = | { form: 'oneLine', entries: number[] }
+    | { form: 'cycles', cycles: number[][] }
+    | { form: 'word', letters: number[] }
+    | { form: 'longest', n: number }
 
 /** A partition, largest part first, e.g. `[2, 1]`. */
 export type Partition = number[]
@@ -34,81 +34,81 @@ export type CountedObject = 'bumplessPipeDreams' | 'pipeDreams' | 'reducedWords'
  * Example: `x_1^2 - y_1` is
  * `{ type: 'add', terms: [{ type: 'power', base: {type:'variable',name:'x',index:1}, exponent: 2 }, { type: 'negate', arg: {type:'variable',name:'y',index:1} }] }`.
  */
-export type Expr =
-  | { type: 'integer'; value: string }
-  | { type: 'variable'; name: 'x' | 'y'; index: number }
-  | { type: 'add'; terms: Expr[] }
-  | { type: 'negate'; arg: Expr }
-  | { type: 'multiply'; factors: Expr[] }
-  | { type: 'power'; base: Expr; exponent: number }
+export type Expr
+  = | { type: 'integer', value: string }
+    | { type: 'variable', name: 'x' | 'y', index: number }
+    | { type: 'add', terms: Expr[] }
+    | { type: 'negate', arg: Expr }
+    | { type: 'multiply', factors: Expr[] }
+    | { type: 'power', base: Expr, exponent: number }
   /** \mathfrak S_w (single) or \mathfrak S_w(x;y) (double). */
   /** `negatedY`: written S_w(x;-y), the double polynomial with every y_j replaced by −y_j. */
-  | { type: 'schubert'; perm: PermutationSpec; variant: SchubertVariant; negatedY?: true }
+    | { type: 'schubert', perm: PermutationSpec, variant: SchubertVariant, negatedY?: true }
   /** \mathfrak G_w, single or double. */
-  | { type: 'grothendieck'; perm: PermutationSpec; variant: SchubertVariant }
+    | { type: 'grothendieck', perm: PermutationSpec, variant: SchubertVariant }
   /** Stanley symmetric function F_w. */
-  | { type: 'stanley'; perm: PermutationSpec }
+    | { type: 'stanley', perm: PermutationSpec }
   /**
    * s_λ, e_k, h_k, m_λ, p_k. `index` is the partition (for e, h, p a one-part partition [k]).
    * `variableCount` is n when written in x_1, …, x_n; absent for symmetric functions in infinitely many variables.
    * `skew` is μ in a skew Schur function s_{λ/μ} (family 'schur' only; λ is `index`).
    */
-  | { type: 'symmetric'; family: SymmetricFamily; index: Partition; variableCount?: number; skew?: Partition }
+    | { type: 'symmetric', family: SymmetricFamily, index: Partition, variableCount?: number, skew?: Partition }
   /** Divided difference ∂_i applied to `arg`. */
-  | { type: 'dividedDifference'; index: number; arg: Expr }
+    | { type: 'dividedDifference', index: number, arg: Expr }
   /** Determinant of a square matrix of expressions, listed row by row. */
-  | { type: 'determinant'; rows: Expr[][] }
+    | { type: 'determinant', rows: Expr[][] }
   /** `arg` with every x_i set to 1 (and every y_j to 0 for a double object), e.g. \mathfrak S_w(1,…,1). */
-  | { type: 'evaluateAtOnes'; arg: Expr; variableCount?: number }
+    | { type: 'evaluateAtOnes', arg: Expr, variableCount?: number }
   /** Coxeter length ℓ(w), the number of inversions. */
-  | { type: 'length'; perm: PermutationSpec }
+    | { type: 'length', perm: PermutationSpec }
   /** #BPD(w), #PD(w), #Red(w). */
-  | { type: 'count'; objects: CountedObject; perm: PermutationSpec }
+    | { type: 'count', objects: CountedObject, perm: PermutationSpec }
   /** Schubert structure constant c_{u,v}^w: coefficient of S_w in S_u S_v. */
-  | { type: 'structureConstant'; u: PermutationSpec; v: PermutationSpec; w: PermutationSpec }
+    | { type: 'structureConstant', u: PermutationSpec, v: PermutationSpec, w: PermutationSpec }
   /** Littlewood–Richardson coefficient c^ν_{λ,μ}: coefficient of s_ν in s_λ s_μ. */
-  | { type: 'littlewoodRichardson'; lambda: Partition; mu: Partition; nu: Partition }
+    | { type: 'littlewoodRichardson', lambda: Partition, mu: Partition, nu: Partition }
   /** Kostka number K_{λμ}: number of semistandard tableaux of shape λ and content μ. */
-  | { type: 'kostka'; shape: Partition; content: Partition }
+    | { type: 'kostka', shape: Partition, content: Partition }
   /**
    * The Schubert class σ_λ in H*(Gr(k,n)) or QH*(Gr(k,n)) of the claim's `setting`. `partition`
    * is λ as written; it may leave the k × (n − k) box (then the class is 0, and a claim that
    * writes it is told so).
    */
-  | { type: 'schubertClass'; partition: Partition }
+    | { type: 'schubertClass', partition: Partition }
   /** The quantum parameter q of QH*(Gr(k,n)) (deg q = n). */
-  | { type: 'quantumParameter' }
+    | { type: 'quantumParameter' }
   /** ∫_{Gr(k,n)} of a class: its coefficient of the point class. `space` is set when written as a subscript. */
-  | { type: 'integral'; arg: Expr; space?: GrassmannianSpace }
+    | { type: 'integral', arg: Expr, space?: GrassmannianSpace }
   /** deg Gr(k,n): the degree of the Grassmannian in its Plücker embedding, ∫σ_1^{k(n−k)}. */
-  | { type: 'grassmannianDegree'; space: GrassmannianSpace }
+    | { type: 'grassmannianDegree', space: GrassmannianSpace }
   /** a ⊗ b of two symmetric functions (written `s_2\otimes s_1`), an element of Λ ⊗ Λ. */
-  | { type: 'tensor'; left: Expr; right: Expr }
+    | { type: 'tensor', left: Expr, right: Expr }
   /** Δ(f): the coproduct of a symmetric function, Δ(s_λ) = Σ c^λ_{μν} s_μ ⊗ s_ν. */
-  | { type: 'coproduct'; arg: Expr }
+    | { type: 'coproduct', arg: Expr }
   /**
    * A formal parameter of the coefficient ring (shared/math/parameter-ring.ts): `beta` in a
    * K-theory claim, or a letter the paper declares with a `parameters` tag (`q`, `t`, `gamma`).
    */
-  | { type: 'parameter'; name: string }
+    | { type: 'parameter', name: string }
   /** `a \oplus b` = a + b + βab and `a \ominus b` = (a − b)/(1 + βb), β formal (shared/math/double-grothendieck.ts). */
-  | { type: 'formalGroup'; op: 'oplus' | 'ominus'; left: Expr; right: Expr }
+    | { type: 'formalGroup', op: 'oplus' | 'ominus', left: Expr, right: Expr }
   /** `arg` with a parameter given a value, written `…|_{\beta=0}`; `value` is a decimal integer. */
-  | { type: 'specialise'; arg: Expr; parameter: string; value: string }
+    | { type: 'specialise', arg: Expr, parameter: string, value: string }
   /** Key polynomial κ_α (`key`) or Demazure atom A_α (`atom`) of a weak composition α. */
-  | { type: 'keyPolynomial'; family: 'key' | 'atom'; composition: number[] }
+    | { type: 'keyPolynomial', family: 'key' | 'atom', composition: number[] }
   /**
    * Back-stable Schubert polynomial ←S_w (`\overleftarrow{\mathfrak{S}}_w`), single or double
    * (factors x − y): symmetric in x_0, x_{−1}, … (and y_0, y_{−1}, …) times a polynomial in x_1, x_2, ….
    */
-  | { type: 'backStable'; perm: PermutationSpec; variant: SchubertVariant }
+    | { type: 'backStable', perm: PermutationSpec, variant: SchubertVariant }
   /** A symmetric function without variables (`arg`) taken in the non-positive variables x_0, x_{−1}, … (or y_0, y_{−1}, …). */
-  | { type: 'nonPositive'; set: 'x' | 'y'; arg: Expr }
+    | { type: 'nonPositive', set: 'x' | 'y', arg: Expr }
   /**
    * "`arg` is supersymmetric in x_1..x_k; y_1..y_k", stated by the text (notation/supersymmetry.ts):
    * the left side of a claim whose right side is the integer 1 (the statement holds).
    */
-  | { type: 'supersymmetric'; arg: Expr; k: number }
+    | { type: 'supersymmetric', arg: Expr, k: number }
 
 /** The Grassmannian Gr(k, n) of k-planes in ℂ^n, as named in the text (1 ≤ k ≤ n − 1). */
 export interface GrassmannianSpace {
@@ -139,27 +139,27 @@ export interface EqualityQuestion {
 export type ClaimQuestion = EqualityQuestion
 
 /** What a claim is about; the main object decides (see shared/latex/classify). */
-export type ClaimKind =
-  | 'schubert'
-  | 'grothendieck'
-  | 'stanley'
-  | 'symmetricFunction'
-  | 'polynomial'
-  | 'dividedDifference'
-  | 'determinant'
-  | 'specialization'
-  | 'length'
-  | 'count'
-  | 'structureConstant'
-  | 'littlewoodRichardson'
-  | 'kostka'
-  | 'key'
-  | 'backStable'
-  | 'supersymmetry'
-  | 'grassmannian'
-  | 'quantumGrassmannian'
-  | 'coproduct'
-  | 'unknown'
+export type ClaimKind
+  = | 'schubert'
+    | 'grothendieck'
+    | 'stanley'
+    | 'symmetricFunction'
+    | 'polynomial'
+    | 'dividedDifference'
+    | 'determinant'
+    | 'specialization'
+    | 'length'
+    | 'count'
+    | 'structureConstant'
+    | 'littlewoodRichardson'
+    | 'kostka'
+    | 'key'
+    | 'backStable'
+    | 'supersymmetry'
+    | 'grassmannian'
+    | 'quantumGrassmannian'
+    | 'coproduct'
+    | 'unknown'
 
 export const CLAIM_KINDS: readonly ClaimKind[] = [
   'schubert', 'grothendieck', 'stanley', 'symmetricFunction', 'polynomial', 'dividedDifference',
@@ -176,12 +176,12 @@ export const CLAIM_KINDS: readonly ClaimKind[] = [
 export type ClaimStatus = 'ready' | 'skipped' | 'unsupported' | 'error'
 
 /** A value bound by the text ("Let $w = 25143$"). */
-export type ContextValue =
-  | { kind: 'permutation'; perm: PermutationSpec }
-  | { kind: 'partition'; parts: Partition }
-  | { kind: 'integer'; value: number }
+export type ContextValue
+  = | { kind: 'permutation', perm: PermutationSpec }
+    | { kind: 'partition', parts: Partition }
+    | { kind: 'integer', value: number }
   /** A weak composition ("Let $\alpha = (0,2,1)$"), for key polynomials and atoms. */
-  | { kind: 'composition'; parts: number[] }
+    | { kind: 'composition', parts: number[] }
 
 export interface Claim {
   /** `file:line:index`, index counting claims that start on that line from 1; stable within a run. */
@@ -212,17 +212,17 @@ export interface Claim {
   tagged?: boolean
 }
 
-export type WarningCode =
-  | 'encoding'
-  | 'binary'
-  | 'main-file'
-  | 'missing-file'
-  | 'include-cycle'
-  | 'path-escape'
-  | 'limit'
-  | 'macro'
-  | 'tag'
-  | 'syntax'
+export type WarningCode
+  = | 'encoding'
+    | 'binary'
+    | 'main-file'
+    | 'missing-file'
+    | 'include-cycle'
+    | 'path-escape'
+    | 'limit'
+    | 'macro'
+    | 'tag'
+    | 'syntax'
 
 /** Something the reader wants the author to know that is not a claim. */
 export interface ReaderWarning {

@@ -34,8 +34,8 @@ export interface DiffWrongCoefficient {
  * - polynomial: monomials; schubertBasis / schurBasis: basis elements; number: two values.
  * Lists are cut at `DIFF_LIMIT` entries; `truncated` then says how many there were.
  */
-export type ClaimDiff =
-  | {
+export type ClaimDiff
+  = | {
     /** `class`: Schubert classes q^d σ_λ of a Grassmannian; `tensor`: s_μ ⊗ s_ν in Λ ⊗ Λ. */
     basis: 'monomial' | 'schubert' | 'schur' | 'class' | 'tensor'
     /** Computed but not written in the manuscript. */
@@ -122,8 +122,8 @@ export interface ReproduceLibrary {
  * A suggested correction of a mismatched claim (shared/check/correction.ts). Only a correction that
  * was re-read and re-checked as verified is `fixed`; anything less certain says why it is not.
  */
-export type ClaimCorrection =
-  | {
+export type ClaimCorrection
+  = | {
     fixed: true
     /** The corrected claim as written in the paper's own macros, e.g. `\\Sch{132} = x_1 + x_2`. */
     statement: string

@@ -159,9 +159,10 @@ export async function makeTar(entries: readonly ArchiveEntry[]): Promise<Buffer>
     if (kind === 'symlink' || kind === 'hardlink') header.linkname = entry.linkTarget ?? ''
     if (kind === 'file') {
       await new Promise<void>((resolve, reject) => {
-        pack.entry(header, contentBytes(entry), (error) => (error ? reject(error) : resolve()))
+        pack.entry(header, contentBytes(entry), error => (error ? reject(error) : resolve()))
       })
-    } else {
+    }
+    else {
       pack.entry(header)
     }
   }

@@ -85,7 +85,7 @@ describe('hostile uploads never hurt the server', () => {
     const { cookie, manuscriptId } = await freshManuscript()
     let healthAnsweredAt = 0
     const upload = sendChunked(`/api/manuscripts/${manuscriptId}/revisions`, cookie, `multipart/form-data; boundary=${BOUNDARY}`, hugeMultipart(15 * MiB))
-      .then((answer) => ({ answer, finishedAt: performance.now() }))
+      .then(answer => ({ answer, finishedAt: performance.now() }))
     await new Promise(resolve => setTimeout(resolve, 50))
     const health = await fetch(new URL('/api/health', baseUrl))
     healthAnsweredAt = performance.now()

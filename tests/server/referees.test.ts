@@ -295,7 +295,7 @@ function getRoutes(): string[] {
 
 describe('anonymity', () => {
   it('no JSON response an author or coauthor can get names the referee', async () => {
-    const ids: Record<string, string> = { manuscripts: paper.manuscriptId, revisions: paper.revisionId, reviews: assignmentId, venues: venueId, submissions: submissionId, 'referee-invitations': acceptToken }
+    const ids: Record<string, string> = { 'manuscripts': paper.manuscriptId, 'revisions': paper.revisionId, 'reviews': assignmentId, 'venues': venueId, 'submissions': submissionId, 'referee-invitations': acceptToken }
     const anyId = [paper.manuscriptId, paper.revisionId, submissionId, assignmentId, venueId]
     const urls = new Set<string>()
     for (const route of getRoutes()) {

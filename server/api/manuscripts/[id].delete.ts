@@ -1,7 +1,6 @@
 import { deleteManuscript } from '../../repositories/manuscripts'
 import { appendAudit } from '../../repositories/audit'
 
-
 export default defineEventHandler(async (event) => {
   const { id } = await routeParamsAs(event, uuidParams('id'))
   const grant = await authorize(event, { manuscript: id, owner: true })

@@ -1,6 +1,5 @@
 import { manuscriptView } from '../../services/views'
 
-
 export default defineEventHandler(async (event) => {
   const { id } = await routeParamsAs(event, uuidParams('id'))
   const grant = await authorize(event, { manuscript: id })

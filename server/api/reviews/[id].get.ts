@@ -1,7 +1,6 @@
 import type { ReviewView } from '#shared/types/api'
 import { revisionViews } from '../../services/views'
 
-
 /** A referee's view of one assigned submission: the submitted revision and its latest run. */
 export default defineEventHandler(async (event): Promise<ReviewView> => {
   const { id } = await routeParamsAs(event, uuidParams('id'))

@@ -14,11 +14,11 @@
  */
 import { isChar, type MathNode } from '../math-tree'
 
-export type Alphabet =
-  | { kind: 'letters'; letters: string[] }
-  | { kind: 'fromZero' }
-  | { kind: 'indexed'; letter: string }
-  | { kind: 'secondZ' }
+export type Alphabet
+  = | { kind: 'letters', letters: string[] }
+    | { kind: 'fromZero' }
+    | { kind: 'indexed', letter: string }
+    | { kind: 'secondZ' }
 
 /** Letters never taken as an alphabet: the engine's own, and z (a second alphabet, below). */
 const RESERVED_LETTERS = new Set(['x', 'y', 'z'])
@@ -46,7 +46,7 @@ function singleLetter(nodes: MathNode[]): string | undefined {
 }
 
 /** `z_3` → { letter: 'z', index: 3 } for one lowercase letter with a number index; undefined otherwise. */
-function indexedVariable(nodes: MathNode[]): { letter: string; index: number } | undefined {
+function indexedVariable(nodes: MathNode[]): { letter: string, index: number } | undefined {
   const ns = stripBold(nodes)
   const letter = ns[0]?.k === 'ch' && /^[a-z]$/.test(ns[0].v) ? ns[0].v : undefined
   const index = letter === undefined ? undefined : indexOf(ns, letter)

@@ -80,7 +80,7 @@ function listForm(content: readonly MathNode[]): 'x' | 'y' | undefined {
  * The non-positive alphabet written right after a symmetric function, `[x_-]` or `(x_0,x_{-1},\dots)`:
  * its letter and the number of nodes it takes, or undefined.
  */
-export function nonPositiveAlphabetAt(nodes: readonly MathNode[], at: number): { set: 'x' | 'y'; length: number } | undefined {
+export function nonPositiveAlphabetAt(nodes: readonly MathNode[], at: number): { set: 'x' | 'y', length: number } | undefined {
   const open = nodes[at]
   const closer = isCh(open, '[') ? ']' : isCh(open, '(') ? ')' : undefined
   if (!closer) return undefined
@@ -97,7 +97,7 @@ export function nonPositiveAlphabetAt(nodes: readonly MathNode[], at: number): {
 const RESERVED_CHERN_LETTERS = new Set(['x', 'y', 'z', 's', 'e', 'h', 'm', 'p', 'q', 'F', 'K', 'C'])
 
 /** The words of a `chern <letter> <h|e>` tag: the directive, or an error message. */
-export function chernFromTagWords(words: readonly string[]): { letter: string; family: ChernFamily } | { error: string } {
+export function chernFromTagWords(words: readonly string[]): { letter: string, family: ChernFamily } | { error: string } {
   const [letter, family] = words
   if (words.length !== 2 || !letter || !family) return { error: '"chern" expects a letter and h or e, e.g. "chern c h"' }
   if (!/^[A-Za-z]$/.test(letter) || RESERVED_CHERN_LETTERS.has(letter)) {

@@ -38,7 +38,8 @@ function complexSpaceDimension(nodes: MathNode[]): number | undefined {
   if (head?.k === 'cs' && head.v === 'mathbb' && ns[1]) {
     if (plainText(ns[1].k === 'group' ? ns[1].children : [ns[1]]).trim() !== 'C') return undefined
     j = 2
-  } else if (head?.k === 'cs' && (head.v === 'CC' || head.v === 'C')) j = 1
+  }
+  else if (head?.k === 'cs' && (head.v === 'CC' || head.v === 'C')) j = 1
   else if (isChar(head, 'C')) j = 1
   else return undefined
   if (!isChar(ns[j], '^') || !ns[j + 1] || ns.length !== j + 2) return undefined
@@ -61,7 +62,7 @@ function closing(nodes: MathNode[], open: number): number {
 }
 
 /** `(k,n)` or `(k,\mathbb{C}^n)` starting at `open`. */
-function pairAt(nodes: MathNode[], open: number): { space: GrassmannianSpace; end: number } | undefined {
+function pairAt(nodes: MathNode[], open: number): { space: GrassmannianSpace, end: number } | undefined {
   if (!isChar(nodes[open], '(')) return undefined
   const close = closing(nodes, open)
   if (close < 0) return undefined
@@ -78,7 +79,7 @@ function pairAt(nodes: MathNode[], open: number): { space: GrassmannianSpace; en
  * The Grassmannian named at `nodes[i]`, and the index after it; e.g. the nodes of
  * `\mathrm{Gr}(2,4)` give `{ space: { k: 2, n: 4 }, end: 7 }`. `allowBareG` also reads `G(k,n)`.
  */
-export function readGrassmannianSpace(nodes: MathNode[], i: number, allowBareG = false): { space: GrassmannianSpace; end: number } | undefined {
+export function readGrassmannianSpace(nodes: MathNode[], i: number, allowBareG = false): { space: GrassmannianSpace, end: number } | undefined {
   const n = nodes[i]
   if (!n) return undefined
   let after: number
@@ -86,7 +87,8 @@ export function readGrassmannianSpace(nodes: MathNode[], i: number, allowBareG =
     const name = plainText((nodes[i + 1] as { children: MathNode[] }).children).trim()
     if (name !== 'Gr') return undefined
     after = i + 2
-  } else if (n.k === 'cs' && n.v === 'Gr') after = i + 1
+  }
+  else if (n.k === 'cs' && n.v === 'Gr') after = i + 1
   else if (isChar(n, 'G') && isChar(nodes[i + 1], 'r')) after = i + 2
   else if (isChar(n, 'G') && allowBareG && !isChar(nodes[i - 1], '_') && !isChar(nodes[i - 1], '^')) after = i + 1
   else return undefined
@@ -252,7 +254,8 @@ export function settingForClaim(lhs: Expr, rhs: Expr, setting: GrassmannianSetti
       else if (e.type === 'symmetric') {
         if (e.variableCount === undefined && (e.family === 'schur' || e.family === 'elementary' || e.family === 'complete')) symmetric = true
         else other = true
-      } else if (e.type === 'tensor' || e.type === 'coproduct') tensor = true
+      }
+      else if (e.type === 'tensor' || e.type === 'coproduct') tensor = true
       else if (!['integer', 'add', 'negate', 'multiply', 'power', 'determinant', 'integral', 'grassmannianDegree'].includes(e.type)) other = true
     })
   }

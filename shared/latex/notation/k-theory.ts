@@ -77,7 +77,7 @@ const BAR_SIZES = new Set(['big', 'Big', 'bigg', 'Bigg', 'bigr', 'Bigr', 'biggr'
  * A specialisation suffix at `nodes[at]`: `|_{\beta=0}`, `\big|_{\beta=0}`, `\right|_{\beta=0}`.
  * Returns the parameter, its integer value and the nodes used; undefined when there is none.
  */
-export function readSpecialisation(nodes: readonly MathNode[], at: number, ctx: KTheoryContext): { parameter: string; value: string; length: number } | undefined {
+export function readSpecialisation(nodes: readonly MathNode[], at: number, ctx: KTheoryContext): { parameter: string, value: string, length: number } | undefined {
   let j = at
   if (nodes[j]?.k === 'cs' && BAR_SIZES.has((nodes[j] as { v: string }).v)) j++
   if (!isChar(nodes[j], '|') || !isChar(nodes[j + 1], '_') || !nodes[j + 2]) return undefined
@@ -95,7 +95,7 @@ export function readSpecialisation(nodes: readonly MathNode[], at: number, ctx: 
 }
 
 /** Key polynomial or atom at this control sequence: `\kappa` or `\mathcal{A}` followed by a subscript. */
-export function keyFamilyAt(nodes: readonly MathNode[], at: number): { family: 'key' | 'atom'; length: number } | undefined {
+export function keyFamilyAt(nodes: readonly MathNode[], at: number): { family: 'key' | 'atom', length: number } | undefined {
   const n = nodes[at]
   if (n?.k !== 'cs') return undefined
   if (n.v === 'kappa' && isChar(nodes[at + 1], '_')) return { family: 'key', length: 1 }
@@ -134,7 +134,8 @@ export function readComposition(sub: MathNode[], ctx: KTheoryContext, used: Map<
     parts = only.map(d => Number((d as { v: string }).v))
     // \mathcal{A}_{12} is as likely a matrix entry as an atom: a bare digit run needs a 0 or three entries.
     if (strict && !parenthesised && parts.length < 3 && !parts.includes(0)) return undefined
-  } else {
+  }
+  else {
     parts = []
     for (const it of items) {
       const u = unwrap(it)
@@ -151,7 +152,8 @@ export function readCompositionBinding(name: string, value: MathNode[]): Context
   try {
     const parts = readComposition(value, { bindings: new Map(), notation: new Map() }, new Map())
     return parts && parts.length > 1 ? { kind: 'composition', parts } : undefined
-  } catch (e) {
+  }
+  catch (e) {
     if (e instanceof KTheoryReadError) return undefined
     throw e
   }

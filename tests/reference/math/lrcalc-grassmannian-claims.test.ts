@@ -22,7 +22,7 @@ function lrcalc(args: string[]): string {
 const parts = (s: string) => s.split(',').map(t => t.trim()).filter(t => t !== '').map(Number)
 
 /** Lines "c  (ν)" or "c  (μ)  (ν)" of lrcalc's output. */
-function lines(out: string): { c: number; groups: Partition[] }[] {
+function lines(out: string): { c: number, groups: Partition[] }[] {
   return out.split('\n').map(l => l.trim()).filter(Boolean).map((l) => {
     const m = /^(-?\d+)((?:\s+\([\d,\s]*\))+)$/.exec(l)
     if (!m) throw new Error(`unexpected lrcalc line "${l}"`)
@@ -48,7 +48,7 @@ function box(k: number, n: number): Partition[] {
 }
 
 /** The sum written as a paper would, and the same sum with its first term written twice (so its coefficient is wrong). */
-function written(terms: string[]): { right: string; wrong: string } {
+function written(terms: string[]): { right: string, wrong: string } {
   return { right: terms.join(' + ') || '0', wrong: terms.length ? [...terms, terms[0]!].join(' + ') : '1' }
 }
 

@@ -18,8 +18,8 @@ function lrcalc(args: string[]): string {
   return execFileSync(LRCALC, args, { encoding: 'utf8' })
 }
 
-function parse(out: string): { c: number; nu: Partition }[] {
-  return out.split('\n').map(l => l.trim()).filter(l => l !== '').map(l => {
+function parse(out: string): { c: number, nu: Partition }[] {
+  return out.split('\n').map(l => l.trim()).filter(l => l !== '').map((l) => {
     const m = /^(-?\d+)\s+\(([\d,\s]*)\)$/.exec(l)
     if (!m) throw new Error(`unexpected lrcalc line: "${l}"`)
     return { c: Number(m[1]), nu: m[2]!.split(',').map(s => s.trim()).filter(s => s !== '').map(Number) }

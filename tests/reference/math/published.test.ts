@@ -47,30 +47,30 @@ describe('Schubert polynomials: published facts', () => {
   it('the table of Schubert polynomials of S_4 (Macdonald, "Notes on Schubert Polynomials", 1991; recalled from memory)', () => {
     // exponent vectors of x_1, x_2, x_3, all coefficients 1
     const table: Record<string, number[][]> = {
-      '1234': [[]],
-      '2134': [[1]],
-      '1324': [[1], [0, 1]],
-      '1243': [[1], [0, 1], [0, 0, 1]],
-      '2314': [[1, 1]],
-      '3124': [[2]],
-      '2143': [[2], [1, 1], [1, 0, 1]],
-      '1342': [[1, 1], [1, 0, 1], [0, 1, 1]],
-      '1423': [[2], [1, 1], [0, 2]],
-      '3214': [[2, 1]],
-      '2341': [[1, 1, 1]],
-      '2413': [[2, 1], [1, 2]],
-      '3142': [[2, 1], [2, 0, 1]],
-      '4123': [[3]],
-      '1432': [[2, 1], [2, 0, 1], [1, 2], [1, 1, 1], [0, 2, 1]],
-      '3241': [[2, 1, 1]],
-      '2431': [[2, 1, 1], [1, 2, 1]],
-      '3412': [[2, 2]],
-      '4213': [[3, 1]],
-      '4132': [[3, 1], [3, 0, 1]],
-      '3421': [[2, 2, 1]],
-      '4231': [[3, 1, 1]],
-      '4312': [[3, 2]],
-      '4321': [[3, 2, 1]],
+      1234: [[]],
+      2134: [[1]],
+      1324: [[1], [0, 1]],
+      1243: [[1], [0, 1], [0, 0, 1]],
+      2314: [[1, 1]],
+      3124: [[2]],
+      2143: [[2], [1, 1], [1, 0, 1]],
+      1342: [[1, 1], [1, 0, 1], [0, 1, 1]],
+      1423: [[2], [1, 1], [0, 2]],
+      3214: [[2, 1]],
+      2341: [[1, 1, 1]],
+      2413: [[2, 1], [1, 2]],
+      3142: [[2, 1], [2, 0, 1]],
+      4123: [[3]],
+      1432: [[2, 1], [2, 0, 1], [1, 2], [1, 1, 1], [0, 2, 1]],
+      3241: [[2, 1, 1]],
+      2431: [[2, 1, 1], [1, 2, 1]],
+      3412: [[2, 2]],
+      4213: [[3, 1]],
+      4132: [[3, 1], [3, 0, 1]],
+      3421: [[2, 2, 1]],
+      4231: [[3, 1, 1]],
+      4312: [[3, 2]],
+      4321: [[3, 2, 1]],
     }
     expect(Object.keys(table).length).toBe(24)
     for (const [w, monos] of Object.entries(table)) {
@@ -78,7 +78,7 @@ describe('Schubert polynomials: published facts', () => {
       expect(schubertPolynomial(parsePermutation(w)).toLatex(), `S_${w}`).toBe(expected.toLatex())
     }
   })
-  it("Macdonald's identity S_w(1,…,1) = (1/ℓ!) Σ_{reduced words a} a_1⋯a_ℓ (Macdonald, ‘Notes on Schubert Polynomials’, 1991; recalled from memory)", () => {
+  it('Macdonald\'s identity S_w(1,…,1) = (1/ℓ!) Σ_{reduced words a} a_1⋯a_ℓ (Macdonald, ‘Notes on Schubert Polynomials’, 1991; recalled from memory)', () => {
     for (const n of [3, 4, 5]) {
       for (const w of allPermutations(n)) {
         let fact = 1n

@@ -29,7 +29,7 @@ print(json.dumps([schubert(d['w'], d['double']) for d in data]))
 
 describe('back-stable Schubert polynomials against sympy truncations S_{1^m × w}', () => {
   it('single: all w in S_4 with m = 1, 2; double: all w in S_3 with m = 1, 2 and four of S_4 with m = 1', () => {
-    const cases: { w: Permutation; m: number; double: boolean }[] = [
+    const cases: { w: Permutation, m: number, double: boolean }[] = [
       ...allPermutations(4).flatMap(w => [1, 2].map(m => ({ w, m, double: false }))),
       ...allPermutations(3).flatMap(w => [1, 2].map(m => ({ w, m, double: true }))),
       ...['2143', '1342', '3142', '2413'].map(s => ({ w: parsePermutation(s), m: 1, double: true })),

@@ -44,7 +44,7 @@ describe('Grothendieck products with β formal against sympy', () => {
       ...allPermutations(4).filter(u => u.length() <= 2).flatMap(u => allPermutations(4).filter(v => v.length() >= 2 && v.length() <= 3).map(v => [u, v] as [Permutation, Permutation])),
     ]
     const items = pairs.map(([u, v]) => {
-      const expansion = [...grothendieckProductFormalBasis(u, v)].flatMap(([key, c]) => c.termList().map(t => {
+      const expansion = [...grothendieckProductFormalBasis(u, v)].flatMap(([key, c]) => c.termList().map((t) => {
         const w = permutationFromKey(key)
         return [[...w.oneLine], Number(t.coefficient), t.parameters[BETA] ?? 0]
       }))
@@ -52,7 +52,7 @@ describe('Grothendieck products with β formal against sympy', () => {
     })
     // A control the program must reject: the last expansion with its last term dropped.
     const control = { ...items[items.length - 1]!, expansion: items[items.length - 1]!.expansion.slice(0, -1) }
-    const out = runSympy<{ agree: boolean; left: [number[], number][] }[]>(PROGRAM, [...items, control])
+    const out = runSympy<{ agree: boolean, left: [number[], number][] }[]>(PROGRAM, [...items, control])
     expect(out.length).toBe(items.length + 1)
     expect(out.pop()!.agree, 'a wrong expansion is rejected').toBe(false)
     pairs.forEach(([u, v], k) => {

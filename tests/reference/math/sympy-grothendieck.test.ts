@@ -43,7 +43,8 @@ describe('double Grothendieck polynomials against an independent sympy computati
       const theirs = polynomialFromSympy(out[k]!, n)
       if (item.form === 'oplus') {
         expect(doubleGrothendieckPolynomial(w, item.beta).equals(theirs), `G_${w}, β=${item.beta}`).toBe(true)
-      } else {
+      }
+      else {
         const denominator = Array.from({ length: n - 1 }, (_, j) => n - 1 - j)
         expect(rationalsEqual(doubleGrothendieckOminus(w, item.beta), { numerator: theirs, beta: item.beta, denominator }), `G^⊖_${w}, β=${item.beta}`).toBe(true)
       }

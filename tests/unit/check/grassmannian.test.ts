@@ -58,7 +58,7 @@ describe('an invented multiplication table of H*(Gr(2,4)), one statement per cel
   }
   const statements = (cells: Record<string, string>) => {
     const rows: string[] = []
-    heads.forEach((a, i) => heads.slice(i).forEach((b) => rows.push(`\\sigma_{${a}} \\cdot \\sigma_{${b}} &= ${cells[`${a}·${b}`]}`)))
+    heads.forEach((a, i) => heads.slice(i).forEach(b => rows.push(`\\sigma_{${a}} \\cdot \\sigma_{${b}} &= ${cells[`${a}·${b}`]}`)))
     return `In $H^*(\\mathrm{Gr}(2,4))$:\n\\begin{align*}\n${rows.join(' \\\\\n')}\n\\end{align*}\n`
   }
 

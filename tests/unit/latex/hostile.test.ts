@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest'
 import { readManuscript } from '../../../shared/latex/index'
 import { readSnippet } from './helpers'
 
-const time = <T>(f: () => T): { value: T; ms: number } => {
+const time = <T>(f: () => T): { value: T, ms: number } => {
   const t = performance.now()
   const value = f()
   return { value, ms: performance.now() - t }

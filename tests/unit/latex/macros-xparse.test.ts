@@ -115,4 +115,3 @@ describe('argument specifications', () => {
     expect(parseArgumentSpec(tokenize('m m m m m m m e{abc}'))).toEqual({ unread: 'more than nine arguments' })
   })
 })
-

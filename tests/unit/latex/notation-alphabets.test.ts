@@ -13,7 +13,7 @@ describe('second alphabets of double Schubert polynomials', () => {
     ['$\\mathfrak{S}_{21}(x|y) = x_1 - y_1$'],
     ['$\\mathfrak{S}_{21}(x\\mid y) = x_1 - y_1$'],
     ['$\\mathfrak{S}_{21}(\\mathbf{x};\\mathbf{y}) = x_1 - y_1$'],
-  ])('reads %s as a double Schubert polynomial', tex => {
+  ])('reads %s as a double Schubert polynomial', (tex) => {
     expect(onlyQuestion(tex).lhs).toEqual(S([2, 1]))
   })
 

@@ -18,7 +18,7 @@ describe('beamer decorations inside math', () => {
     ['$s_{1}\\, s_{1} = s_{2} + \\textcolor{red}{s_{11}}$'],
     ['$s_{1}\\, s_{1} = s_{2} + \\textcolor<2>{blue}{s_{11}}$'],
     ['$s_{1}\\, s_{1} = s_{2} + {\\color{red} s_{11}}$'],
-  ])('keeps the content of %s, verifies it and flags the same claim with a term dropped', tex => {
+  ])('keeps the content of %s, verifies it and flags the same claim with a term dropped', (tex) => {
     expect(verdictsOf(tex)).toEqual(['verified'])
     expect(verdictsOf(tex.replace('s_{2} ', 's_{3} '))).toEqual(['mismatch'])
   })

@@ -121,7 +121,7 @@ describe('the specialisation β = 0', () => {
 describe('key polynomials and Demazure atoms', () => {
   const key = (composition: number[]) => ({ type: 'keyPolynomial', family: 'key', composition })
 
-  it.each([['$\\kappa_{(0,2,1)} = 0$'], ['$\\kappa_{021} = 0$'], ['$\\kappa_{0,2,1} = 0$']])('reads %s as κ_(0,2,1)', tex => {
+  it.each([['$\\kappa_{(0,2,1)} = 0$'], ['$\\kappa_{021} = 0$'], ['$\\kappa_{0,2,1} = 0$']])('reads %s as κ_(0,2,1)', (tex) => {
     expect(onlyQuestion(tex).lhs).toEqual(key([0, 2, 1]))
   })
 

@@ -30,7 +30,7 @@ describe('LR indices without commas', () => {
     ['$c^{42}_{21\\,21} = 1$'],
     ['$c^{42}_{21\\ 21} = 1$'],
     ['$c^{42}_{21\\;21} = 1$'],
-  ])('splits %s at the spacing', tex => {
+  ])('splits %s at the spacing', (tex) => {
     expect(onlyQuestion(tex).lhs).toEqual(lr([4, 2], [2, 1], [2, 1]))
   })
 

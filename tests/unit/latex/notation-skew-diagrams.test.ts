@@ -13,7 +13,7 @@ describe('skew Schur functions', () => {
     ['$s_{(3,2)/(1)} = s_{31}+s_{22}$'],
     ['$s_{32/1} = s_{31}+s_{22}$'],
     ['$s_{3,2/1} = s_{31}+s_{22}$'],
-  ])('reads %s as s_{(3,2)/(1)}', tex => {
+  ])('reads %s as s_{(3,2)/(1)}', (tex) => {
     expect(onlyQuestion(tex).lhs).toEqual(skew([3, 2], [1]))
   })
 

@@ -10,9 +10,9 @@ import { readManuscript } from '../../../shared/latex/index'
 import { FIXTURES, readSnippet } from './helpers'
 
 /** Line and column where each inline math region starts, according to unified-latex. */
-function inlineMathStarts(tex: string): { line: number; column: number }[] {
-  const out: { line: number; column: number }[] = []
-  visit(parse(tex), node => {
+function inlineMathStarts(tex: string): { line: number, column: number }[] {
+  const out: { line: number, column: number }[] = []
+  visit(parse(tex), (node) => {
     if (node.type === 'inlinemath' && node.position) out.push({ line: node.position.start.line, column: node.position.start.column })
   })
   return out
@@ -45,7 +45,7 @@ describe('positions agree with unified-latex', () => {
       '\\end{lstlisting}',
       '\\begin{comment} $\\ell(21) = 4$ \\end{comment} Last: $\\ell(4321) = 6$',
     ].join('\n')
-    const expected: { line: number; column: number }[] = []
+    const expected: { line: number, column: number }[] = []
     visit(parse(tex), (node, info) => {
       const inDrawing = info.parents.some(p => p.type === 'environment' && (p as { env?: string }).env === 'tikzpicture')
       if (node.type === 'inlinemath' && node.position && !inDrawing) expected.push({ line: node.position.start.line, column: node.position.start.column })

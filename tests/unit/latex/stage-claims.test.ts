@@ -10,7 +10,7 @@ import type { WarningCode } from '../../../shared/types/claims'
 /** A file holding `text`, and a region over the math between its first `$…$` (or the whole text for display). */
 function setup(text: string, display = false) {
   const file: SourceFile = { path: 'a.tex', original: text, masked: text, starts: lineStarts(text), lineTags: new Map() }
-  const warnings: { code: WarningCode; message: string }[] = []
+  const warnings: { code: WarningCode, message: string }[] = []
   const output = new ClaimOutput(10, (code, message) => warnings.push({ code, message }))
   const state: ReadingState = { bindings: new BindingScopes(), notation: new Map(), conventions: new Map() }
   const reader = new ClaimReader(output, state)

@@ -46,7 +46,8 @@ describe('Schubert basis', () => {
     expect(schubertExpansion(x(3), { within: 4 }).size).toBe(2)
     try {
       schubertExpansion(x(1).pow(4), { within: 4 })
-    } catch (e) {
+    }
+    catch (e) {
       expect((e as NotInSpanError).code).toBe('NOT_IN_SPAN')
     }
   })

@@ -16,7 +16,7 @@ const single = (p: Partition): SchurCombination => new Map([[partitionKey(p), 1]
 const sorted = (m: ReadonlyMap<string, number | bigint>) => [...m].sort((a, b) => a[0].localeCompare(b[0]))
 
 /** A Grassmannian with 2 ≤ n ≤ 8 and three classes in its box. */
-const grassmannianAndClasses = fc.integer({ min: 2, max: 8 }).chain(n => fc.integer({ min: 1, max: n - 1 }).chain(k => {
+const grassmannianAndClasses = fc.integer({ min: 2, max: 8 }).chain(n => fc.integer({ min: 1, max: n - 1 }).chain((k) => {
   const classes = box(k, n)
   const pick = fc.integer({ min: 0, max: classes.length - 1 }).map(i => classes[i]!)
   return fc.tuple(fc.constant(k), fc.constant(n), pick, pick, pick)

@@ -86,7 +86,8 @@ describe('pipe dreams and bumpless pipe dreams', () => {
     expect(() => bumplessPipeDreams(Permutation.fromOneLine([1, 5, 4, 3, 2, 8, 7, 6]), { maxSteps: 100 })).toThrow(BudgetExceededError)
     try {
       pipeDreams(Permutation.fromOneLine([1, 5, 4, 3, 2, 8, 7, 6]), { maxTerms: 10 })
-    } catch (e) {
+    }
+    catch (e) {
       expect((e as BudgetExceededError).code).toBe('TOO_LARGE')
     }
   })

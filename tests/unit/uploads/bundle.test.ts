@@ -33,7 +33,8 @@ function sha256(data: string | Buffer): string {
 async function refusal(work: Promise<unknown>): Promise<UploadRefusedError> {
   try {
     await work
-  } catch (error) {
+  }
+  catch (error) {
     expect(error).toBeInstanceOf(UploadRefusedError)
     return error as UploadRefusedError
   }
@@ -77,7 +78,8 @@ describe('the archive helpers themselves (checked by outside readers)', () => {
       expect(lines[0]).toBe('None')
       expect(lines[1]).toBe(`p/main.tex 0o100644 ${MAIN_TEX.split('\n')[0]}`)
       expect(out).toContain('p/link 0o120777 ../x')
-    } finally {
+    }
+    finally {
       rmSync(dir, { recursive: true, force: true })
     }
   })
@@ -93,7 +95,8 @@ describe('the archive helpers themselves (checked by outside readers)', () => {
       const out = execFileSync('tar', ['-tvzf', file], { encoding: 'utf8' })
       expect(out).toMatch(/^-.* p\/main\.tex$/m)
       expect(out).toMatch(/^l.* p\/link -> main\.tex$/m)
-    } finally {
+    }
+    finally {
       rmSync(dir, { recursive: true, force: true })
     }
   })
@@ -113,7 +116,7 @@ describe('plain file uploads', () => {
       { filename: 'sections/intro.tex', data: Buffer.from(INTRO_TEX) },
       { filename: 'figures/plot.PNG', data: PNG_BYTES },
     ])
-    expect(files.map((f) => [f.path, f.sha256, f.size])).toEqual([
+    expect(files.map(f => [f.path, f.sha256, f.size])).toEqual([
       ['main.tex', sha256(MAIN_TEX), Buffer.byteLength(MAIN_TEX)],
       ['sections/intro.tex', sha256(INTRO_TEX), Buffer.byteLength(INTRO_TEX)],
       ['figures/plot.PNG', sha256(PNG_BYTES), PNG_BYTES.length],
@@ -210,7 +213,7 @@ describe('arXiv-style bundles', () => {
 
   it.each(FORMATS)('reads a .%s bundle, strips the common top folder and hashes every file', async (format) => {
     const result = await readUploadBundle(await upload(format, bundle))
-    const byPath = new Map(result.files.map((f) => [f.path, f]))
+    const byPath = new Map(result.files.map(f => [f.path, f]))
     expect([...byPath.keys()].sort()).toEqual(['figures/plot.png', 'main.tex', 'refs.bib', 'sections/intro.tex'])
     expect(byPath.get('main.tex')?.sha256).toBe(sha256(MAIN_TEX))
     expect(byPath.get('sections/intro.tex')?.sha256).toBe(sha256(INTRO_TEX))
@@ -226,7 +229,7 @@ describe('arXiv-style bundles', () => {
       { path: 'main.tex', content: MAIN_TEX },
       { path: 'sections/intro.tex', content: INTRO_TEX },
     ]))
-    expect(files.map((f) => f.path).sort()).toEqual(['main.tex', 'sections/intro.tex'])
+    expect(files.map(f => f.path).sort()).toEqual(['main.tex', 'sections/intro.tex'])
   })
 
   it('leaves out macOS metadata and reports it', async () => {
@@ -235,8 +238,8 @@ describe('arXiv-style bundles', () => {
       { path: '__MACOSX/paper/._main.tex', content: 'resource fork' },
       { path: 'paper/.DS_Store', content: 'finder data' },
     ]))
-    expect(result.files.map((f) => f.path)).toEqual(['main.tex'])
-    expect(result.skipped.map((s) => s.name)).toEqual(['__MACOSX/paper/._main.tex', 'paper/.DS_Store'])
+    expect(result.files.map(f => f.path)).toEqual(['main.tex'])
+    expect(result.skipped.map(s => s.name)).toEqual(['__MACOSX/paper/._main.tex', 'paper/.DS_Store'])
   })
 
   it('refuses an archive with only folders as empty, and one without .tex as no-tex', async () => {
@@ -334,7 +337,7 @@ describe('links and special entries', () => {
       { path: 'main.tex', content: MAIN_TEX },
       { path: 'secret.tex', content: '/etc/passwd' },
     ]))
-    expect(files.map((f) => f.path).sort()).toEqual(['main.tex', 'secret.tex'])
+    expect(files.map(f => f.path).sort()).toEqual(['main.tex', 'secret.tex'])
   })
 
   it('refuses a zip entry whose Unix mode marks a device', async () => {

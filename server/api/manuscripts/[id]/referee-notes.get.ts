@@ -1,7 +1,6 @@
 import type { ReleasedRefereeNotes } from '#shared/types/editorial'
 import { listClaimNotes, listReleasedAssignmentsForManuscript } from '../../../repositories/referee-notes'
 
-
 /**
  * Released referee notes for the manuscript's members. Referees are "Referee N" (numbered per
  * submission); nothing here is read from a referee's user row, so no name or e-mail can leak.

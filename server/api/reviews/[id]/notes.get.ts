@@ -1,7 +1,6 @@
 import type { ReviewNotesView } from '#shared/types/editorial'
 import { listClaimNotes, listClaimOptions } from '../../../repositories/referee-notes'
 
-
 /** The referee's own notes on an assignment, and the claims they can be written on. */
 export default defineEventHandler(async (event): Promise<ReviewNotesView> => {
   const { id } = await routeParamsAs(event, uuidParams('id'))

@@ -1,7 +1,6 @@
 import type { RevisionCommentsView } from '#shared/types/discussion'
 import { revisionComments } from '../../../services/discussion'
 
-
 /**
  * The members' threads on this revision's claims. Only members of the manuscript may read
  * them: a referee or an editor who may see the report gets 404 here, as if there were no

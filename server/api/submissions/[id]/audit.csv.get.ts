@@ -1,6 +1,5 @@
 import { auditSummary, auditSummaryCsv } from '../../../services/audit-summary'
 
-
 /** The submission's audit summary as a CSV download, for its venue's editors only. */
 export default defineEventHandler(async (event) => {
   const { id } = await routeParamsAs(event, uuidParams('id'))

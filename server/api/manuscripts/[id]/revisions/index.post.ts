@@ -1,7 +1,6 @@
 import { createRevision } from '../../../../services/revisions'
 import { MalformedUploadError, MAX_UPLOAD_REQUEST_BYTES, receiveMultipartUpload, UPLOAD_LIMITS, UploadRefusedError, type ReceivedUpload } from '../../../../uploads'
 
-
 export default defineEventHandler(async (event) => {
   const { id } = await routeParamsAs(event, uuidParams('id'))
   const grant = await authorize(event, { manuscript: id })
