@@ -1,8 +1,7 @@
 // The repository's one formatter: ESLint Stylistic on top of the lint config (eslint.config.mjs),
 // so formatting and linting share one parser setup for .ts and .vue. Apply with `npm run format`;
-// `npm run format:check` (and scripts/test.sh when SCHOLIUM_TEST_FORMAT_CHECK=1) only reports.
-// Kept apart from the lint config until the one formatting commit lands, so `npx eslint .` is
-// unchanged before then.
+// `npm run format:check` (run by `npm test`) only reports. Kept apart from the lint config so
+// that `npx eslint .` reports defects only, and formatting is fixed by one command.
 import stylistic from '@stylistic/eslint-plugin'
 import lint from './eslint.config.mjs'
 

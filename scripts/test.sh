@@ -70,9 +70,9 @@ suite() {
   npx vitest run --project "$1" ${SCHOLIUM_TEST_FILTER:-} --reporter=default --reporter=json --outputFile="$RESULTS/vitest-$1.json" || true
 }
 
-# The formatting check (ESLint Stylistic, eslint.format.config.mjs) is off until the one commit that
-# applies `npm run format` to the whole repository lands; that commit turns the default to 1.
-SCHOLIUM_TEST_FORMAT_CHECK="${SCHOLIUM_TEST_FORMAT_CHECK:-0}"
+# The formatting check (ESLint Stylistic, eslint.format.config.mjs) is on; SCHOLIUM_TEST_FORMAT_CHECK=0
+# skips it for a quick local run.
+SCHOLIUM_TEST_FORMAT_CHECK="${SCHOLIUM_TEST_FORMAT_CHECK:-1}"
 if [ "${SCHOLIUM_TEST_SKIP_CHECKS:-}" != 1 ]; then
   step lint npx eslint .
   [ "$SCHOLIUM_TEST_FORMAT_CHECK" = 1 ] && step format npm run --silent format:check
