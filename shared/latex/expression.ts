@@ -402,6 +402,11 @@ export class SideParser {
         case 'C':
           return this.capitalCoefficient()
         case '[':
+          // [X_\lambda], [\Omega_\lambda]: the class of a Schubert variety. Papers index these by
+          // codimension (the class is σ_λ) or by dimension (σ of the complement), so never guess.
+          if ((isCh(this.peek(), 'X') || isCs(this.peek(), 'Omega')) && isCh(this.peek(1), '_')) {
+            throw new ParseFail('[X_λ] is not read: papers index Schubert varieties by codimension (class σ_λ) or by dimension (σ of the complement); write σ_λ')
+          }
           // [x_1^2]\mathfrak{S}_{312}: the coefficient of a monomial in what follows.
           if (this.i === 1 && isCoefficientExtraction(this.nodes, this.ctx)) throw new ParseFail(COEFFICIENT_EXTRACTION)
           break

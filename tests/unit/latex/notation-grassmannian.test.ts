@@ -254,3 +254,13 @@ describe('q in plain H^*', () => {
     expect(readSnippet('In $QH^*(\\mathrm{Gr}(2,4))$ we have $\\sigma_1 \\sigma_{22} = q\\sigma_1$.').claims.map(c => c.status)).toEqual(['ready'])
   })
 })
+
+describe('classes of Schubert varieties [X_λ]', () => {
+  // Whether X_λ has codimension |λ| (class σ_λ) or dimension |λ| (class σ of the complement) differs
+  // between papers; under the other reading [X_1]^2 = [X_2] + [X_{11}] in Gr(2,4) would be a red mark.
+  it('are not read, with a reason that names the two indexings', () => {
+    const read = readSnippet('In $H^*(\\mathrm{Gr}(2,4))$ we have $[X_{1}]^2 = [X_{2}] + [X_{11}]$ and $[\\Omega_{1}]^2 = [\\Omega_{2}] + [\\Omega_{11}]$.')
+    expect(read.claims).toEqual([])
+    expect(read.notRead.map(n => n.reason)).toEqual([expect.stringMatching(/codimension .* dimension/), expect.stringMatching(/codimension .* dimension/)])
+  })
+})
