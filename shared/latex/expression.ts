@@ -15,7 +15,7 @@
  * - An operator ∂_i applies to the rest of its product term: `\partial_1 x_1^2 x_2` is ∂_1(x_1^2 x_2).
  */
 import type { ContextValue, Expr, GrassmannianSetting, Partition, PermutationSpec, CountedObject, SymmetricFamily } from '../types/claims'
-import { MATRIX_ENVS, plainText, type MathNode } from './math-tree'
+import { MATRIX_ENVS, plainText, splitCommas, type MathNode } from './math-tree'
 import type { NotationObject } from './tags'
 import { alphabetOfList, declaredAlphabet, type Alphabet } from './notation/alphabet'
 import { UNREAD_MACRO_PREFIX, unreadMacroReason } from './macros'
@@ -92,19 +92,6 @@ function unwrap(nodes: MathNode[]): MathNode[] {
   let cur = nodes
   while (cur.length === 1 && cur[0]!.k === 'group') cur = cur[0]!.children
   return cur
-}
-
-/** Split a node list at top-level commas (outside parentheses and brackets). */
-function splitCommas(nodes: MathNode[]): MathNode[][] {
-  const out: MathNode[][] = [[]]
-  let depth = 0
-  for (const n of nodes) {
-    if (isCh(n, '(') || isCh(n, '[')) depth++
-    if (isCh(n, ')') || isCh(n, ']')) depth--
-    if (depth === 0 && isCh(n, ',')) out.push([])
-    else out[out.length - 1]!.push(n)
-  }
-  return out
 }
 
 function readInteger(nodes: MathNode[]): number | undefined {

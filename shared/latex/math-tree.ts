@@ -433,3 +433,16 @@ export function spanOf(nodes: MathNode[]): { pos: number, end: number } | undefi
   }
   return { pos, end }
 }
+
+/** Split a node list at top-level commas (outside parentheses and brackets): `1,(2,3)` → `1` and `(2,3)`. */
+export function splitCommas(nodes: MathNode[]): MathNode[][] {
+  const out: MathNode[][] = [[]]
+  let depth = 0
+  for (const n of nodes) {
+    if (isChar(n, '(') || isChar(n, '[')) depth++
+    if (isChar(n, ')') || isChar(n, ']')) depth--
+    if (depth === 0 && isChar(n, ',')) out.push([])
+    else out[out.length - 1]!.push(n)
+  }
+  return out
+}

@@ -10,7 +10,7 @@ import { join } from 'node:path'
 import { randomUUID } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, Page } from 'playwright-core'
-import { baseUrl, launchBrowser, screenshotDir } from './browser'
+import { baseUrl, launchBrowser, screenshotDir, signedInPage } from './browser'
 import { db, filesForm, inboxUrl, newMember } from '../server/helpers'
 import type { InboxMessage } from '../../shared/types/api'
 
@@ -32,15 +32,7 @@ const venueName = `Fernhollow Review of Tableaux ${randomUUID().slice(0, 6)}`
 const overallNote = 'A tidy note; the second example needs another term.'
 const claimNote = 'The second example misses x_2.'
 
-async function signedInPage(who: Member): Promise<Page> {
-  const page = await (await browser.newContext({ viewport: { width: 1400, height: 1000 } })).newPage()
-  await page.goto(`${baseUrl}/sign-in`)
-  await page.getByLabel('E-mail').fill(who.email)
-  await page.getByLabel('Password').fill(PASSWORD)
-  await page.getByRole('button', { name: 'Sign in' }).click()
-  await page.waitForURL(/\/desk$/)
-  return page
-}
+const signedIn = (who: Member) => signedInPage(browser, who, PASSWORD)
 
 const shot = (page: Page, name: string) => page.screenshot({ path: join(screenshotDir, `referee-${name}.png`), fullPage: true })
 
@@ -67,7 +59,7 @@ describe('refereeing in the browser', () => {
   let authorPage: Page, editorPage: Page, refereePage: Page
 
   it('the author submits the revision to the venue', async () => {
-    authorPage = await signedInPage(author)
+    authorPage = await signedIn(author)
     await authorPage.goto(`${baseUrl}/manuscripts/${manuscriptId}`)
     await authorPage.getByTestId('submit-venue').selectOption({ label: venueName })
     await authorPage.getByTestId('submit-form').getByRole('button', { name: 'Submit' }).click()
@@ -75,7 +67,7 @@ describe('refereeing in the browser', () => {
   })
 
   it('the editor finds it in the table and invites a referee by e-mail', async () => {
-    editorPage = await signedInPage(editor)
+    editorPage = await signedIn(editor)
     await editorPage.goto(`${baseUrl}/venues/${venueId}`)
     const row = editorPage.getByTestId('submission-row').filter({ hasText: 'Small reflections, checked' })
     expect(await row.getByTestId('count-mismatch').innerText()).toBe('1')
@@ -90,7 +82,7 @@ describe('refereeing in the browser', () => {
     const mail = mails.find(m => m.to.includes(referee.email) && m.subject.includes('Invitation to referee'))
     const link = /https?:\/\/\S+\/referee-invitations\/[\w-]+/.exec(mail?.text ?? '')?.[0]
     expect(link).toBeDefined()
-    refereePage = await signedInPage(referee)
+    refereePage = await signedIn(referee)
     await refereePage.goto(link!)
     await refereePage.getByTestId('accept-invitation').click()
     await refereePage.waitForURL(/\/reviews\//)

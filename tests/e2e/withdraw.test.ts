@@ -7,7 +7,7 @@ import { join } from 'node:path'
 import { randomUUID } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, Page } from 'playwright-core'
-import { baseUrl, launchBrowser, screenshotDir } from './browser'
+import { baseUrl, launchBrowser, screenshotDir, signedInPage } from './browser'
 import { db, filesForm, newMember, SMALL_TEX } from '../server/helpers'
 
 const PASSWORD = 'correct horse battery' // what newMember signs up with
@@ -19,15 +19,7 @@ let manuscriptId: string, venueId: string, submissionId: string
 const venueName = `Quillmere Notes on Tableaux ${randomUUID().slice(0, 6)}`
 const title = `A paper sent and taken back ${randomUUID().slice(0, 6)}`
 
-async function signedInPage(who: Member): Promise<Page> {
-  const page = await (await browser.newContext({ viewport: { width: 1400, height: 1000 } })).newPage()
-  await page.goto(`${baseUrl}/sign-in`)
-  await page.getByLabel('E-mail').fill(who.email)
-  await page.getByLabel('Password').fill(PASSWORD)
-  await page.getByRole('button', { name: 'Sign in' }).click()
-  await page.waitForURL(/\/desk$/)
-  return page
-}
+const signedIn = (who: Member) => signedInPage(browser, who, PASSWORD)
 
 const shot = (page: Page, name: string) => page.screenshot({ path: join(screenshotDir, `withdraw-${name}.png`), fullPage: true })
 
@@ -52,7 +44,7 @@ describe('withdrawing a submission in the browser', () => {
   let page: Page
 
   it('the owner asks to withdraw, reads what it means, and keeps it: nothing changes', async () => {
-    page = await signedInPage(author)
+    page = await signedIn(author)
     await page.goto(`${baseUrl}/manuscripts/${manuscriptId}`)
     const item = page.getByTestId('manuscript-submissions').locator('li').filter({ hasText: venueName })
     await expect.poll(() => item.getAttribute('data-status')).toBe('submitted')
@@ -83,7 +75,7 @@ describe('withdrawing a submission in the browser', () => {
   })
 
   it('the venue keeps its record: the editor still sees the submission in the table, marked withdrawn', async () => {
-    const editorPage = await signedInPage(editor)
+    const editorPage = await signedIn(editor)
     await editorPage.goto(`${baseUrl}/venues/${venueId}`)
     const row = editorPage.getByTestId('submission-row').filter({ hasText: title })
     await expect.poll(() => row.getByTestId('submission-status').innerText()).toBe('withdrawn')

@@ -20,7 +20,7 @@
  *   reads as the part of a partition or a numbered object, never as a composition: it is not read.
  */
 import type { ContextValue } from '../../types/claims'
-import { isChar, plainText, type MathNode } from '../math-tree'
+import { isChar, plainText, splitCommas, type MathNode } from '../math-tree'
 import type { NotationObject } from '../tags'
 
 /** What the notation needs from the parser's context. */
@@ -125,7 +125,7 @@ export function readComposition(sub: MathNode[], ctx: KTheoryContext, used: Map<
   let inner = ns
   const parenthesised = isChar(inner[0], '(') && isChar(inner[inner.length - 1], ')')
   if (parenthesised) inner = inner.slice(1, -1)
-  const items = splitTopCommas(inner)
+  const items = splitCommas(inner)
   let parts: number[]
   if (items.length === 1) {
     const only = unwrap(items[0]!)
@@ -157,16 +157,4 @@ export function readCompositionBinding(name: string, value: MathNode[]): Context
     if (e instanceof KTheoryReadError) return undefined
     throw e
   }
-}
-
-function splitTopCommas(nodes: MathNode[]): MathNode[][] {
-  const out: MathNode[][] = [[]]
-  let depth = 0
-  for (const n of nodes) {
-    if (isChar(n, '(') || isChar(n, '[')) depth++
-    if (isChar(n, ')') || isChar(n, ']')) depth--
-    if (depth === 0 && isChar(n, ',')) out.push([])
-    else out[out.length - 1]!.push(n)
-  }
-  return out
 }
