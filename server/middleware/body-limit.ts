@@ -19,6 +19,25 @@ function tooLarge(): never {
   fail(413, 'body-too-large', 'The request body is larger than 1 MB')
 }
 
+/**
+ * How much of a refused body is still read and thrown away before the 413, and for how long. A
+ * server that closes its socket while request bytes are unread makes the kernel reset the
+ * connection, and the client may lose the 413 it was sent (it saw EPIPE instead). Reading a
+ * body of a few MiB to its end first avoids that; a larger one is cut off at these bounds.
+ */
+const DISCARD_AFTER_REFUSAL_BYTES = 4 * 1024 * 1024
+const DISCARD_AFTER_REFUSAL_MS = 2000
+
+/** Read and throw away the rest of a refused body, within the bounds above. */
+async function discardRest(req: IncomingMessage, alreadySeen: number): Promise<void> {
+  const started = Date.now()
+  let seen = alreadySeen
+  for await (const chunk of req.iterator({ destroyOnReturn: false })) {
+    seen += (chunk as Buffer).length
+    if (seen > MAX_JSON_BODY_BYTES + DISCARD_AFTER_REFUSAL_BYTES || Date.now() - started > DISCARD_AFTER_REFUSAL_MS) return
+  }
+}
+
 async function readLimited(event: H3Event): Promise<Buffer> {
   const req = event.node.req
   const chunks: Buffer[] = []
@@ -26,7 +45,11 @@ async function readLimited(event: H3Event): Promise<Buffer> {
   // destroyOnReturn: false, because destroying the request would drop the socket before the 413 is sent.
   for await (const chunk of req.iterator({ destroyOnReturn: false })) {
     seen += (chunk as Buffer).length
-    if (seen > MAX_JSON_BODY_BYTES) tooLarge()
+    if (seen > MAX_JSON_BODY_BYTES) {
+      chunks.length = 0
+      await discardRest(req, seen)
+      tooLarge()
+    }
     chunks.push(chunk as Buffer)
   }
   return Buffer.concat(chunks)
@@ -39,7 +62,10 @@ export default defineEventHandler(async (event) => {
   if (event.method === 'POST' && UPLOAD_ROUTE.test(path)) return
   const headers = event.node.req.headers
   const declared = Number(headers['content-length'] ?? '0')
-  if (declared > MAX_JSON_BODY_BYTES) tooLarge()
+  if (declared > MAX_JSON_BODY_BYTES) {
+    await discardRest(event.node.req, 0)
+    tooLarge()
+  }
   const chunked = /\bchunked\b/i.test(String(headers['transfer-encoding'] ?? ''))
   if (!(declared > 0) && !chunked) return
   const body = await readLimited(event)
